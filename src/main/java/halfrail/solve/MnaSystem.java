@@ -1,0 +1,535 @@
+package halfrail.solve;
+
+import halfrail.circuit.Capacitor;
+import halfrail.circuit.Circuit;
+import halfrail.circuit.CurrentSource;
+import halfrail.circuit.Element;
+import halfrail.circuit.OpAmp;
+import halfrail.circuit.OpAmpParams;
+import halfrail.circuit.Resistor;
+import halfrail.circuit.VoltageSource;
+
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Modified nodal analysis of a {@link Circuit}: the circuit written as
+ * {@code f(x, t) + d/dt q(x) = 0}, with the Jacobians {@code G = ∂f/∂x} and {@code C = ∂q/∂x}.
+ *
+ * <p>Unknowns, in order: the voltage of every non-ground node (V); the branch current of every
+ * voltage source, flowing out of its plus terminal into the circuit (A); the output current of
+ * every op-amp, flowing out of its output pin (A); the internal state of every op-amp, the
+ * unloaded output voltage (V). Node rows are Kirchhoff's current law (sum of currents leaving
+ * the node, A); branch rows are voltage equations (V).
+ *
+ * <p>Op-amp model: with {@code u = A·(V(in+) − V(in−) + Vos)}, the limited target is
+ * {@code L(u)}: u itself inside the swing window {@code [V(vNeg)+swingLow, V(vPos)−swingHigh]}
+ * and an exponential knee of width {@link #KNEE_VOLTS} towards each limit, so the output
+ * approaches but never crosses them. In DC the state equals L(u); in the dynamic form it
+ * follows {@code dx/dt = SR·tanh(ωp·(L(u) − x)/SR)}, a dominant pole at GBW/A with slew limit.
+ * The output pin sits at {@code x − Rout·Iout}. Bias currents flow into the input pins and out
+ * through V−; the quiescent current flows from V+ to V−; the output current is drawn from V+
+ * when sourcing and returned to V− when sinking, so the supply's branch current is the battery
+ * current.
+ *
+ * <p>Immutable and thread-safe; {@link #evaluate} writes only into the caller's arrays.
+ */
+public final class MnaSystem {
+    /** Width of the exponential knee of the op-amp output limiter, V. */
+    public static final double KNEE_VOLTS = 0.01;
+    /**
+     * Smoothing current of the split of an op-amp's output current between its supply pins, A.
+     * At zero output current each pin carries half of it, in opposite directions; it vanishes
+     * from the sum and keeps the split differentiable.
+     */
+    public static final double SPLIT_SMOOTHING_AMPS = 1e-9;
+
+    private final Circuit circuit;
+    private final Map<String, Integer> nodeIndex;
+    private final List<String> unknownNames;
+    private final Map<String, Integer> branchIndex;
+    private final Map<String, Integer> stateIndex;
+    private final int nodeCount;
+    private final int size;
+    private final Device[] devices;
+
+    private MnaSystem(Circuit circuit) {
+        this.circuit = circuit;
+        Map<String, Integer> nodes = new HashMap<>();
+        List<String> names = new ArrayList<>();
+        for (String n : circuit.nodes()) {
+            nodes.put(n, names.size());
+            names.add("V(" + n + ")");
+        }
+        this.nodeCount = names.size();
+        Map<String, Integer> branches = new HashMap<>();
+        for (VoltageSource v : circuit.elements(VoltageSource.class)) {
+            branches.put(v.name(), names.size());
+            names.add("I(" + v.name() + ")");
+        }
+        for (OpAmp o : circuit.elements(OpAmp.class)) {
+            branches.put(o.name(), names.size());
+            names.add("I(" + o.name() + ".out)");
+        }
+        Map<String, Integer> states = new HashMap<>();
+        for (OpAmp o : circuit.elements(OpAmp.class)) {
+            states.put(o.name(), names.size());
+            names.add("X(" + o.name() + ")");
+        }
+        this.nodeIndex = Collections.unmodifiableMap(nodes);
+        this.unknownNames = List.copyOf(names);
+        this.branchIndex = Collections.unmodifiableMap(branches);
+        this.stateIndex = Collections.unmodifiableMap(states);
+        this.size = names.size();
+        List<Device> list = new ArrayList<>();
+        for (Element e : circuit.elements()) {
+            list.add(device(e));
+        }
+        this.devices = list.toArray(new Device[0]);
+    }
+
+    /** Assemble the equations of {@code circuit}. */
+    public static MnaSystem of(Circuit circuit) {
+        return new MnaSystem(circuit);
+    }
+
+    public Circuit circuit() {
+        return circuit;
+    }
+
+    /** Number of unknowns. */
+    public int size() {
+        return size;
+    }
+
+    /** Number of node-voltage unknowns; they come first. */
+    public int nodeCount() {
+        return nodeCount;
+    }
+
+    /** Index of a node's voltage, or −1 for ground. @throws AnalysisException BAD_REQUEST for an unknown node */
+    public int nodeIndex(String node) {
+        if (Circuit.GROUND.equals(node) || Circuit.GROUND_ALIAS.equalsIgnoreCase(node)) {
+            return -1;
+        }
+        Integer i = nodeIndex.get(node);
+        if (i == null) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no node named " + node);
+        }
+        return i;
+    }
+
+    /** Index of the branch current of a voltage source, or of an op-amp's output current. */
+    public int branchIndex(String element) {
+        Integer i = branchIndex.get(element);
+        if (i == null) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
+                    "no voltage source or op-amp named " + element);
+        }
+        return i;
+    }
+
+    /** Index of an op-amp's internal state (its unloaded output voltage). */
+    public int stateIndex(String opAmp) {
+        Integer i = stateIndex.get(opAmp);
+        if (i == null) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + opAmp);
+        }
+        return i;
+    }
+
+    /** A readable name of unknown {@code i}, for example {@code V(mid)} or {@code I(VBAT)}. */
+    public String unknownName(int i) {
+        return unknownNames.get(i);
+    }
+
+    /** The node name of unknown {@code i} when it is a node voltage; otherwise the unknown's name. */
+    public String nodeName(int i) {
+        return i < nodeCount ? circuit.nodes().get(i) : unknownNames.get(i);
+    }
+
+    /** Voltage of {@code node} in the solution vector {@code x} (0 for ground). */
+    public double voltage(double[] x, String node) {
+        int i = nodeIndex(node);
+        return i < 0 ? 0 : x[i];
+    }
+
+    /**
+     * Evaluate the equations at {@code x}.
+     *
+     * @param x           the unknowns (length {@link #size()})
+     * @param t           time in s, for the dynamic form (source ramps); ignored in DC
+     * @param mode        DC or dynamic form
+     * @param sourceScale factor on every independent source, bias and offset (1 for the real circuit;
+     *                    smaller values serve source stepping)
+     * @param gmin        conductance in S from every node to ground (0 for the real circuit;
+     *                    larger values serve gmin stepping)
+     * @param f           receives f(x, t) (cleared first)
+     * @param g           receives ∂f/∂x (cleared first); may be null when not needed
+     * @param q           receives q(x) (cleared first); may be null when not needed
+     * @param c           receives ∂q/∂x (cleared first); may be null when not needed
+     */
+    public void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin,
+                         double[] f, double[][] g, double[] q, double[][] c) {
+        evaluate(x, t, mode, sourceScale, gmin, true, f, g, q, c);
+    }
+
+    /**
+     * As {@link #evaluate(double[], double, Mode, double, double, double[], double[][], double[], double[][])},
+     * optionally with every op-amp's output limiter switched off (a purely linear circuit, used
+     * to find a starting point for Newton's method).
+     */
+    void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit,
+                  double[] f, double[][] g, double[] q, double[][] c) {
+        java.util.Arrays.fill(f, 0, size, 0);
+        if (g != null) {
+            for (int i = 0; i < size; i++) {
+                java.util.Arrays.fill(g[i], 0, size, 0);
+            }
+        }
+        if (q != null) {
+            java.util.Arrays.fill(q, 0, size, 0);
+        }
+        if (c != null) {
+            for (int i = 0; i < size; i++) {
+                java.util.Arrays.fill(c[i], 0, size, 0);
+            }
+        }
+        Stamp s = new Stamp(x, f, g, q, c, limit);
+        for (Device d : devices) {
+            d.load(s, t, mode, sourceScale);
+        }
+        if (gmin > 0) {
+            for (int i = 0; i < nodeCount; i++) {
+                s.conductance(i, -1, gmin);
+            }
+        }
+    }
+
+    /**
+     * The right-hand side b of the small-signal system for a unit change of one source: for a
+     * voltage source, +1 in its branch row; for a current source, the current injected at its
+     * nodes. Multiply by the source's AC magnitude for the AC sweep.
+     */
+    public double[] sourceDirection(String sourceName) {
+        double[] b = new double[size];
+        Element e = circuit.element(sourceName).orElseThrow(() ->
+                new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no source named " + sourceName));
+        if (e instanceof VoltageSource) {
+            b[branchIndex(sourceName)] = 1;
+        } else if (e instanceof CurrentSource i) {
+            int from = nodeIndex(i.from());
+            int to = nodeIndex(i.to());
+            if (from >= 0) {
+                b[from] -= 1;
+            }
+            if (to >= 0) {
+                b[to] += 1;
+            }
+        } else {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, sourceName + " is not a source");
+        }
+        return b;
+    }
+
+    /**
+     * Whether op-amp {@code name}'s open-loop target lies outside its swing window at {@code x},
+     * that is whether the part has left its linear region.
+     */
+    public boolean saturated(double[] x, String name) {
+        for (Device d : devices) {
+            if (d instanceof OpAmpDevice o && o.part.name().equals(name)) {
+                return o.saturated(x);
+            }
+        }
+        throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
+    }
+
+    private Device device(Element e) {
+        if (e instanceof Resistor r) {
+            return new ResistorDevice(idx(r.a()), idx(r.b()), 1.0 / r.ohms());
+        } else if (e instanceof Capacitor cap) {
+            return new CapacitorDevice(idx(cap.plus()), idx(cap.minus()), cap.farads(), cap.leakageSiemens());
+        } else if (e instanceof VoltageSource v) {
+            return new VoltageSourceDevice(v, idx(v.plus()), idx(v.minus()), branchIndex.get(v.name()));
+        } else if (e instanceof CurrentSource i) {
+            return new CurrentSourceDevice(idx(i.from()), idx(i.to()), i.amps());
+        } else if (e instanceof OpAmp o) {
+            return new OpAmpDevice(o, idx(o.inPlus()), idx(o.inMinus()), idx(o.vPos()), idx(o.vNeg()), idx(o.out()),
+                    branchIndex.get(o.name()), stateIndex.get(o.name()));
+        }
+        throw new IllegalStateException("unhandled element " + e);
+    }
+
+    private int idx(String node) {
+        return nodeIndex(node);
+    }
+
+    /** Accumulates contributions; index −1 is ground and is skipped. */
+    private static final class Stamp {
+        final double[] x;
+        final double[] f;
+        final double[][] g;
+        final double[] q;
+        final double[][] c;
+        final boolean limit;
+
+        Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit) {
+            this.limit = limit;
+            this.x = x;
+            this.f = f;
+            this.g = g;
+            this.q = q;
+            this.c = c;
+        }
+
+        double v(int i) {
+            return i < 0 ? 0 : x[i];
+        }
+
+        void f(int row, double value) {
+            if (row >= 0) {
+                f[row] += value;
+            }
+        }
+
+        void g(int row, int col, double value) {
+            if (row >= 0 && col >= 0 && g != null) {
+                g[row][col] += value;
+            }
+        }
+
+        /** A conductance between nodes a and b: f and G. */
+        void conductance(int a, int b, double gab) {
+            double i = gab * (v(a) - v(b));
+            f(a, i);
+            f(b, -i);
+            g(a, a, gab);
+            g(a, b, -gab);
+            g(b, a, -gab);
+            g(b, b, gab);
+        }
+
+        /** A capacitance between nodes a and b: q and C. */
+        void capacitance(int a, int b, double cab) {
+            double charge = cab * (v(a) - v(b));
+            if (q != null) {
+                if (a >= 0) {
+                    q[a] += charge;
+                }
+                if (b >= 0) {
+                    q[b] -= charge;
+                }
+            }
+            if (c != null) {
+                if (a >= 0) {
+                    c[a][a] += cab;
+                }
+                if (b >= 0) {
+                    c[b][b] += cab;
+                }
+                if (a >= 0 && b >= 0) {
+                    c[a][b] -= cab;
+                    c[b][a] -= cab;
+                }
+            }
+        }
+    }
+
+    private interface Device {
+        void load(Stamp s, double t, Mode mode, double scale);
+    }
+
+    private record ResistorDevice(int a, int b, double g) implements Device {
+        @Override
+        public void load(Stamp s, double t, Mode mode, double scale) {
+            s.conductance(a, b, g);
+        }
+    }
+
+    private record CapacitorDevice(int a, int b, double farads, double leak) implements Device {
+        @Override
+        public void load(Stamp s, double t, Mode mode, double scale) {
+            if (leak > 0) {
+                s.conductance(a, b, leak);
+            }
+            if (mode == Mode.DYNAMIC) {
+                s.capacitance(a, b, farads);
+            }
+        }
+    }
+
+    private record VoltageSourceDevice(VoltageSource part, int p, int m, int br) implements Device {
+        @Override
+        public void load(Stamp s, double t, Mode mode, double scale) {
+            double current = s.x[br];
+            s.f(p, -current);
+            s.f(m, current);
+            s.g(p, br, -1);
+            s.g(m, br, 1);
+            double e = scale * (mode == Mode.DC ? part.dcVolts() : part.valueAt(t));
+            s.f[br] += s.v(p) - s.v(m) - e + part.seriesOhms() * current;
+            s.g(br, p, 1);
+            s.g(br, m, -1);
+            s.g(br, br, part.seriesOhms());
+        }
+    }
+
+    private record CurrentSourceDevice(int from, int to, double amps) implements Device {
+        @Override
+        public void load(Stamp s, double t, Mode mode, double scale) {
+            s.f(from, scale * amps);
+            s.f(to, -scale * amps);
+        }
+    }
+
+    private static final class OpAmpDevice implements Device {
+        final OpAmp part;
+        final int inP;
+        final int inM;
+        final int vp;
+        final int vn;
+        final int out;
+        final int br;
+        final int st;
+        final double gain;
+        final double poleRadPerSecond;
+        final double slew;
+
+        OpAmpDevice(OpAmp part, int inP, int inM, int vp, int vn, int out, int br, int st) {
+            this.part = part;
+            this.inP = inP;
+            this.inM = inM;
+            this.vp = vp;
+            this.vn = vn;
+            this.out = out;
+            this.br = br;
+            this.st = st;
+            OpAmpParams p = part.params();
+            this.gain = p.openLoopGain();
+            this.poleRadPerSecond = 2 * Math.PI * p.dominantPoleHz();
+            this.slew = p.slewRateVoltsPerSecond();
+        }
+
+        boolean saturated(double[] x) {
+            OpAmpParams p = part.params();
+            double u = gain * (val(x, inP) - val(x, inM) + p.offsetVolts());
+            double lo = val(x, vn) + p.swingLowVolts();
+            double hi = val(x, vp) - p.swingHighVolts();
+            return u >= hi || u <= lo;
+        }
+
+        private static double val(double[] x, int i) {
+            return i < 0 ? 0 : x[i];
+        }
+
+        @Override
+        public void load(Stamp s, double t, Mode mode, double scale) {
+            OpAmpParams p = part.params();
+            // Input bias currents into the pins, returned through V-.
+            double ibp = scale * (p.biasAmps() + p.offsetCurrentAmps() / 2);
+            double ibm = scale * (p.biasAmps() - p.offsetCurrentAmps() / 2);
+            s.f(inP, ibp);
+            s.f(inM, ibm);
+            s.f(vn, -(ibp + ibm));
+            // Quiescent current from V+ to V-.
+            double iq = scale * p.quiescentAmps();
+            s.f(vp, iq);
+            s.f(vn, -iq);
+
+            // Output current: out of the output pin, drawn from V+ when sourcing, returned to V- when sinking.
+            double io = s.x[br];
+            double root = Math.sqrt(io * io + SPLIT_SMOOTHING_AMPS * SPLIT_SMOOTHING_AMPS);
+            double source = 0.5 * (io + root);
+            double dSource = 0.5 * (1 + io / root);
+            s.f(out, -io);
+            s.g(out, br, -1);
+            s.f(vp, source);
+            s.g(vp, br, dSource);
+            s.f(vn, -(source - io));
+            s.g(vn, br, -(dSource - 1));
+
+            // Output pin equation: V(out) = x - Rout * Io.
+            double xs = s.x[st];
+            s.f[br] += s.v(out) - xs + p.outputOhms() * io;
+            s.g(br, out, 1);
+            s.g(br, st, -1);
+            s.g(br, br, p.outputOhms());
+
+            // Limited open-loop target L(u) and its partial derivatives.
+            double u = gain * (s.v(inP) - s.v(inM) + scale * p.offsetVolts());
+            double lo = s.v(vn) + p.swingLowVolts();
+            double hi = s.v(vp) - p.swingHighVolts();
+            double limited;
+            double dU;
+            double dLo;
+            double dHi;
+            double half = 0.5 * (hi - lo);
+            if (!s.limit) {
+                limited = u;
+                dU = 1;
+                dLo = 0;
+                dHi = 0;
+            } else if (half <= 0) {
+                // Supplies too low for any window: the output rests midway.
+                limited = 0.5 * (hi + lo);
+                dU = 0;
+                dLo = 0.5;
+                dHi = 0.5;
+            } else {
+                double k = Math.min(KNEE_VOLTS, 0.5 * half);
+                if (u > hi - k) {
+                    double e = Math.exp(-(u - (hi - k)) / k);
+                    limited = hi - k * e;
+                    dU = e;
+                    dHi = 1 - e;
+                    dLo = 0;
+                } else if (u < lo + k) {
+                    double e = Math.exp((u - (lo + k)) / k);
+                    limited = lo + k * e;
+                    dU = e;
+                    dLo = 1 - e;
+                    dHi = 0;
+                } else {
+                    limited = u;
+                    dU = 1;
+                    dLo = 0;
+                    dHi = 0;
+                }
+            }
+            if (mode == Mode.DC) {
+                // x - L(u) = 0
+                s.f[st] += xs - limited;
+                s.g(st, st, 1);
+                addTargetJacobian(s, -1, dU, dLo, dHi);
+            } else {
+                // dx/dt - SR * tanh(wp * (L - x) / SR) = 0
+                double arg = poleRadPerSecond * (limited - xs) / slew;
+                double th = Math.tanh(arg);
+                double sech2 = 1 - th * th;
+                s.f[st] += -slew * th;
+                double dLimited = -poleRadPerSecond * sech2; // d f / d L
+                s.g(st, st, poleRadPerSecond * sech2);
+                addTargetJacobian(s, dLimited, dU, dLo, dHi);
+                if (s.q != null) {
+                    s.q[st] += xs;
+                }
+                if (s.c != null) {
+                    s.c[st][st] += 1;
+                }
+            }
+        }
+
+        /** Adds factor * dL/dx to row st. */
+        private void addTargetJacobian(Stamp s, double factor, double dU, double dLo, double dHi) {
+            double du = factor * dU * gain;
+            s.g(st, inP, du);
+            s.g(st, inM, -du);
+            s.g(st, vn, factor * dLo);
+            s.g(st, vp, factor * dHi);
+        }
+    }
+}
