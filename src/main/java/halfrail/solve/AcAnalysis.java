@@ -199,6 +199,8 @@ public final class AcAnalysis {
     /**
      * The lower −3.0103 dB point in Hz, relative to the peak gain over [fStartHz, fStopHz]; empty
      * when the gain does not fall that far below the peak within the range.
+     *
+     * @throws AnalysisException as {@link #passband(String, String, double, double)}
      */
     public OptionalDouble lowerCornerHz(String inputSource, String outputNode, double fStartHz, double fStopHz) {
         return passband(inputSource, outputNode, fStartHz, fStopHz).lowerCornerHz();
@@ -207,6 +209,8 @@ public final class AcAnalysis {
     /**
      * The upper −3.0103 dB point in Hz, relative to the peak gain over [fStartHz, fStopHz]; empty
      * when the gain does not fall that far above the peak within the range.
+     *
+     * @throws AnalysisException as {@link #passband(String, String, double, double)}
      */
     public OptionalDouble upperCornerHz(String inputSource, String outputNode, double fStartHz, double fStopHz) {
         return passband(inputSource, outputNode, fStartHz, fStopHz).upperCornerHz();

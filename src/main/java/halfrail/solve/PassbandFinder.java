@@ -40,10 +40,19 @@ final class PassbandFinder {
     static final int CORNER_SOLVER_ORDER = 5;
 
     private final DoubleUnaryOperator magnitude;
+    private final int maxPeakEvaluations;
+    private final int maxCornerEvaluations;
 
     /** @param magnitude |H| as a function of frequency in Hz */
     PassbandFinder(DoubleUnaryOperator magnitude) {
+        this(magnitude, AcAnalysis.MAX_PEAK_EVALUATIONS, AcAnalysis.MAX_CORNER_EVALUATIONS);
+    }
+
+    /** With other evaluation limits than {@link AcAnalysis}'s (tests reach them on purpose). */
+    PassbandFinder(DoubleUnaryOperator magnitude, int maxPeakEvaluations, int maxCornerEvaluations) {
         this.magnitude = magnitude;
+        this.maxPeakEvaluations = maxPeakEvaluations;
+        this.maxCornerEvaluations = maxCornerEvaluations;
     }
 
     AcPassband find(double fStartHz, double fStopHz) {
@@ -107,25 +116,25 @@ final class PassbandFinder {
     private UnivariatePointValuePair refinePeak(double lo, double hi, double start) {
         BrentOptimizer optimizer = new BrentOptimizer(PEAK_RELATIVE_TOLERANCE, PEAK_ABSOLUTE_TOLERANCE_DECADES);
         try {
-            return optimizer.optimize(new MaxEval(AcAnalysis.MAX_PEAK_EVALUATIONS),
+            return optimizer.optimize(new MaxEval(maxPeakEvaluations),
                     new UnivariateObjectiveFunction(this::at), GoalType.MAXIMIZE,
                     new SearchInterval(lo, hi, start));
         } catch (MathIllegalStateException e) {
             throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
-                    "the search for the peak gain did not converge within " + AcAnalysis.MAX_PEAK_EVALUATIONS
+                    "the search for the peak gain did not converge within " + maxPeakEvaluations
                             + " evaluations between " + Math.pow(10, lo) + " and " + Math.pow(10, hi) + " Hz");
         }
     }
 
-    private static double corner(UnivariateFunction below, double lo, double hi, String which) {
+    private double corner(UnivariateFunction below, double lo, double hi, String which) {
         BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(CORNER_RELATIVE_ACCURACY,
                 CORNER_ABSOLUTE_ACCURACY_DECADES, CORNER_FUNCTION_ACCURACY, CORNER_SOLVER_ORDER);
         try {
-            return solver.solve(AcAnalysis.MAX_CORNER_EVALUATIONS, below, lo, hi, AllowedSolution.ANY_SIDE);
+            return solver.solve(maxCornerEvaluations, below, lo, hi, AllowedSolution.ANY_SIDE);
         } catch (MathIllegalStateException | MathIllegalArgumentException e) {
             throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
                     "the search for the " + which + " −3 dB point did not converge within "
-                            + AcAnalysis.MAX_CORNER_EVALUATIONS + " evaluations between " + Math.pow(10, lo)
+                            + maxCornerEvaluations + " evaluations between " + Math.pow(10, lo)
                             + " and " + Math.pow(10, hi) + " Hz");
         }
     }
