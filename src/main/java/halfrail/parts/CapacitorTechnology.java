@@ -47,7 +47,7 @@ public record CapacitorTechnology(String id, String displayName, boolean polaris
         Require.fraction(owner, "typicalTolerance", typicalTolerance, true);
         Require.fraction(owner, "voltageDerating", voltageDerating, false);
         if (leakage == null) {
-            throw Require.bad(owner + ": leakage is missing");
+            throw Require.bad("leakage", owner + ": leakage is missing");
         }
         Require.fraction(owner, "typicalFractionOfLimit", typicalFractionOfLimit, false);
         standardRatedVolts = Require.nonEmpty(owner, "standardRatedVolts", standardRatedVolts);
@@ -55,7 +55,7 @@ public record CapacitorTechnology(String id, String displayName, boolean polaris
         for (double v : standardRatedVolts) {
             Require.positive(owner, "standardRatedVolts", v, "V");
             if (v <= previous) {
-                throw Require.bad(owner + ": standardRatedVolts must be strictly ascending, got " + standardRatedVolts);
+                throw Require.bad("standardRatedVolts", owner + ": standardRatedVolts must be strictly ascending, got " + standardRatedVolts);
             }
             previous = v;
         }

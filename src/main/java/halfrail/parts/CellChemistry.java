@@ -51,13 +51,13 @@ public record CellChemistry(String id, String displayName, int cellsPerUnit, dou
         String owner = "cell chemistry " + id;
         Require.text(owner, "displayName", displayName);
         if (cellsPerUnit < 1) {
-            throw Require.bad(owner + ": cellsPerUnit must be at least 1, got " + cellsPerUnit);
+            throw Require.bad("cellsPerUnit", owner + ": cellsPerUnit must be at least 1, got " + cellsPerUnit);
         }
         Require.positive(owner, "freshVolts", freshVolts, "V");
         Require.positive(owner, "nominalVolts", nominalVolts, "V");
         Require.positive(owner, "endPointVolts", endPointVolts, "V");
         if (!(endPointVolts < nominalVolts && nominalVolts <= freshVolts)) {
-            throw Require.bad(owner + ": voltages must satisfy endPointVolts < nominalVolts <= freshVolts, got "
+            throw Require.bad("nominalVolts", owner + ": voltages must satisfy endPointVolts < nominalVolts <= freshVolts, got "
                     + endPointVolts + ", " + nominalVolts + ", " + freshVolts);
         }
         Require.positive(owner, "capacityAmpHours", capacityAmpHours, "A·h");
@@ -70,23 +70,23 @@ public record CellChemistry(String id, String displayName, int cellsPerUnit, dou
 
     private static void checkCurve(String owner, List<DischargePoint> curve, double fresh, double end) {
         if (curve.size() < 2) {
-            throw Require.bad(owner + ": dischargeCurve needs at least two points");
+            throw Require.bad("dischargeCurve", owner + ": dischargeCurve needs at least two points");
         }
         DischargePoint first = curve.get(0);
         DischargePoint last = curve.get(curve.size() - 1);
         if (first.fractionUsed() != 0 || last.fractionUsed() != 1) {
-            throw Require.bad(owner + ": dischargeCurve must run from fractionUsed 0 to 1");
+            throw Require.bad("dischargeCurve", owner + ": dischargeCurve must run from fractionUsed 0 to 1");
         }
         if (Math.abs(first.volts() - fresh) > CURVE_END_TOLERANCE_VOLTS
                 || Math.abs(last.volts() - end) > CURVE_END_TOLERANCE_VOLTS) {
-            throw Require.bad(owner + ": dischargeCurve must start at freshVolts (" + fresh
+            throw Require.bad("dischargeCurve", owner + ": dischargeCurve must start at freshVolts (" + fresh
                     + " V) and end at endPointVolts (" + end + " V)");
         }
         for (int i = 1; i < curve.size(); i++) {
             DischargePoint a = curve.get(i - 1);
             DischargePoint b = curve.get(i);
             if (!(b.fractionUsed() > a.fractionUsed()) || !(b.volts() < a.volts())) {
-                throw Require.bad(owner + ": dischargeCurve point " + i
+                throw Require.bad("dischargeCurve[" + i + "]", owner + ": dischargeCurve point " + i
                         + " must have a larger fractionUsed and a lower voltage than the point before");
             }
         }

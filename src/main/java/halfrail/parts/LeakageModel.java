@@ -68,12 +68,12 @@ public sealed interface LeakageModel permits LeakageModel.CurrentLimit, LeakageM
         public Insulation {
             bands = Require.nonEmpty("insulation leakage", "bands", bands);
             if (bands.get(0).ratedVoltsAtLeast() != 0) {
-                throw Require.bad("insulation leakage: the first band must start at 0 V so every rating has a band, got "
+                throw Require.bad("bands[0].ratedVoltsAtLeast", "insulation leakage: the first band must start at 0 V so every rating has a band, got "
                         + bands.get(0).ratedVoltsAtLeast());
             }
             for (int i = 1; i < bands.size(); i++) {
                 if (bands.get(i).ratedVoltsAtLeast() <= bands.get(i - 1).ratedVoltsAtLeast()) {
-                    throw Require.bad("insulation leakage: bands must be in ascending order of ratedVoltsAtLeast");
+                    throw Require.bad("bands[" + i + "].ratedVoltsAtLeast", "insulation leakage: bands must be in ascending order of ratedVoltsAtLeast");
                 }
             }
             Require.positive("insulation leakage", "smallCapacitanceOhms", smallCapacitanceOhms, "Ω");

@@ -35,15 +35,15 @@ public record OpAmpArchetype(String id, String displayName, String description, 
         Require.text(owner, "displayName", displayName);
         Require.text(owner, "description", description);
         if (typical == null) {
-            throw Require.bad(owner + ": typical parameters are missing");
+            throw Require.bad("typical", owner + ": typical parameters are missing");
         }
         if (spread == null) {
-            throw Require.bad(owner + ": spread is missing");
+            throw Require.bad("spread", owner + ": spread is missing");
         }
         if (Math.abs(typical.offsetVolts()) > spread.offsetVoltsMax()
                 || Math.abs(typical.biasAmps()) > spread.biasAmpsMax()
                 || Math.abs(typical.offsetCurrentAmps()) > spread.offsetCurrentAmpsMax()) {
-            throw Require.bad(owner + ": a typical input error (offset voltage, bias or offset current) "
+            throw Require.bad("spread", owner + ": a typical input error (offset voltage, bias or offset current) "
                     + "exceeds its maximum in spread");
         }
         basis = Require.basis(owner, basis, BASIS_FIELDS, BASIS_FIELDS);

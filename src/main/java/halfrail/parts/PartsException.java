@@ -26,16 +26,27 @@ public final class PartsException extends RuntimeException {
     private final Kind kind;
     private final String resource;
     private final String jsonPath;
+    private final String field;
 
     public PartsException(Kind kind, String message) {
-        this(kind, "", "", message, null);
+        this(kind, "", "", "", message, null);
+    }
+
+    /** An error about one field of a record, named relative to it (for example {@code "dischargeCurve[6]"}). */
+    public PartsException(Kind kind, String field, String message) {
+        this(kind, "", "", field, message, null);
     }
 
     public PartsException(Kind kind, String resource, String jsonPath, String message, Throwable cause) {
+        this(kind, resource, jsonPath, "", message, cause);
+    }
+
+    private PartsException(Kind kind, String resource, String jsonPath, String field, String message, Throwable cause) {
         super(message, cause);
         this.kind = Objects.requireNonNull(kind, "kind");
         this.resource = resource == null ? "" : resource;
         this.jsonPath = jsonPath == null ? "" : jsonPath;
+        this.field = field == null ? "" : field;
     }
 
     public Kind kind() {
@@ -50,5 +61,13 @@ public final class PartsException extends RuntimeException {
     /** Where in the resource, as {@code $.field[index].field}; empty when unknown or not about loading. */
     public String jsonPath() {
         return jsonPath;
+    }
+
+    /**
+     * For a {@link Kind#BAD_VALUE} raised by a record, the field concerned relative to that
+     * record (for example {@code "voltageDerating"} or {@code "basis.portRange"}); empty when none.
+     */
+    public String field() {
+        return field;
     }
 }

@@ -12,6 +12,7 @@ import com.fasterxml.jackson.databind.JsonMappingException;
 import com.fasterxml.jackson.databind.MapperFeature;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.json.JsonMapper;
+import halfrail.circuit.CircuitException;
 
 import java.io.IOException;
 import java.io.InputStream;
@@ -76,7 +77,7 @@ final class PartsResources {
             }
             file = MAPPER.readValue(in, fileType);
         } catch (JsonMappingException e) {
-            throw badData(resource, pathOf(e.getPath()), e);
+            throw badData(resource, withField(pathOf(e.getPath()), fieldOf(e.getCause())), e);
         } catch (StreamReadException e) {
             throw badData(resource, pathOf(e.getProcessor()), e);
         } catch (IOException e) {
@@ -124,13 +125,32 @@ final class PartsResources {
     private static PartsException badData(String resource, String path, JsonProcessingException e) {
         Throwable cause = e.getCause();
         // A record constructor's own complaint is the clearest explanation; Jackson's wrapper adds noise.
-        String what = cause instanceof PartsException || cause instanceof halfrail.circuit.CircuitException
+        String what = cause instanceof PartsException || cause instanceof CircuitException
                 ? cause.getMessage()
                 : e.getOriginalMessage();
         JsonLocation at = e.getLocation();
         String where = at == null || at.getLineNr() < 0 ? "" : " (line " + at.getLineNr() + ", column " + at.getColumnNr() + ")";
         return new PartsException(PartsException.Kind.BAD_DATA, resource, path,
                 resource + " at " + path + where + ": " + what, e);
+    }
+
+    /** The field a record's own complaint names, relative to the record; empty when none. */
+    private static String fieldOf(Throwable cause) {
+        if (cause instanceof PartsException p) {
+            return p.field();
+        }
+        if (cause instanceof CircuitException c) {
+            return c.field();
+        }
+        return "";
+    }
+
+    /** Appends a relative field ({@code "a.b"} or {@code "c[2]"}) to a JSON path. */
+    static String withField(String path, String field) {
+        if (field == null || field.isEmpty()) {
+            return path;
+        }
+        return path + (field.startsWith("[") ? "" : ".") + field;
     }
 
     /** Formats Jackson's reference chain as {@code $.entries[2].leakage.kind}. */

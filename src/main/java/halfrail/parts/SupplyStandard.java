@@ -34,7 +34,7 @@ public record SupplyStandard(String id, String displayName, double nominalVolts,
         Require.positive(owner, "portMaxVolts", portMaxVolts, "V");
         Require.positive(owner, "deviceMinVolts", deviceMinVolts, "V");
         if (!(deviceMinVolts <= portMinVolts && portMinVolts <= nominalVolts && nominalVolts <= portMaxVolts)) {
-            throw Require.bad(owner + ": voltages must satisfy deviceMinVolts <= portMinVolts <= nominalVolts"
+            throw Require.bad("portMinVolts", owner + ": voltages must satisfy deviceMinVolts <= portMinVolts <= nominalVolts"
                     + " <= portMaxVolts");
         }
         Require.text(owner, "note", note);
