@@ -1,6 +1,9 @@
 package halfrail.parts;
 
 import halfrail.circuit.Capacitor;
+import halfrail.circuit.Circuit;
+import halfrail.solve.DcSolver;
+import halfrail.solve.OperatingPoint;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
 
@@ -206,5 +209,22 @@ class CapacitorTechnologyTest {
         assertTrue(tech(CapacitorTechnology.TANTALUM).basis().get("leakage").contains("unverified"));
         assertTrue(tech(CapacitorTechnology.ALUMINIUM_ELECTROLYTIC).basis().get("voltageDerating").contains("common practice"));
         assertTrue(tech(CapacitorTechnology.TANTALUM).basis().get("voltageDerating").contains("common practice"));
+    }
+
+    @Test
+    @DisplayName("the DC solution draws the leakage current through a limit-leakage electrolytic (closed form: divider of 1 MΩ and U_R / I_limit)")
+    void theSolverDrawsTheLeakageCurrentThroughALimitLeakageCapacitor() {
+        CapacitorTechnology e = tech(CapacitorTechnology.ALUMINIUM_ELECTROLYTIC);
+        Circuit circuit = Circuit.builder().nodes("in", "n")
+                .voltageSource("V1", "in", "0", 10)
+                .resistor("R1", "in", "n", 1e6)
+                .add(e.toCapacitor("C1", "n", "0", 47e-6, 40, LeakageLevel.LIMIT))
+                .build();
+        OperatingPoint op = DcSolver.operatingPoint(circuit);
+        // IEC 60384-4 limit 18.8 µA at 40 V (from memory) → 2.128 MΩ; divider with 1 MΩ: 10 V / (1 + 1e6·18.8e-6/40).
+        double expected = 10 / (1 + 1e6 * 18.8e-6 / 40);
+        assertEquals(expected, op.voltage("n"), 1e-6);
+        double throughR1 = (10 - op.voltage("n")) / 1e6;
+        assertEquals(throughR1, e.leakageAmps(47e-6, 40, op.voltage("n"), LeakageLevel.LIMIT), 1e-12);
     }
 }
