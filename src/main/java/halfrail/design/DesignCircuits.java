@@ -144,9 +144,9 @@ public final class DesignCircuits {
             switch (s.kind()) {
                 case NON_INVERTING, FOLLOWER -> {
                     if (s.inputCapacitor() != null) {
-                        if (direct) {
+                        if (direct && s.biased()) {
                             p = ref;
-                        } else {
+                        } else if (s.biased()) {
                             add(new Resistor("RBIAS" + n, ref, p, r.biasOhms()), "reference.biasOhms");
                         }
                         capacitor("CIN" + n, p, previous, s.inputCapacitor(), path + ".inputCapacitor");

@@ -14,9 +14,18 @@ package halfrail.design;
  *                      unused by other kinds
  * @param inputCapacitor coupling capacitor at the stage's input; null for DC coupling from the
  *                      previous stage (or the source)
+ * @param biased        whether the stage's non-inverting input gets its bias resistor from the
+ *                      reference when its input is AC-coupled; false models a forgotten bias
+ *                      resistor (the input then has no DC path — a fault the checks report)
  */
 public record Stage(String name, StageKind kind, OpAmpChoice opAmp, double feedbackOhms, double legOhms,
-                    CapacitorSpec legCapacitor, CapacitorSpec inputCapacitor) {
+                    CapacitorSpec legCapacitor, CapacitorSpec inputCapacitor, boolean biased) {
+
+    /** A stage with its bias resistor in place. */
+    public Stage(String name, StageKind kind, OpAmpChoice opAmp, double feedbackOhms, double legOhms,
+                 CapacitorSpec legCapacitor, CapacitorSpec inputCapacitor) {
+        this(name, kind, opAmp, feedbackOhms, legOhms, legCapacitor, inputCapacitor, true);
+    }
 
     public Stage {
         if (name == null || name.isBlank()) {
@@ -40,22 +49,26 @@ public record Stage(String name, StageKind kind, OpAmpChoice opAmp, double feedb
     }
 
     public Stage withFeedbackOhms(double r2) {
-        return new Stage(name, kind, opAmp, r2, legOhms, legCapacitor, inputCapacitor);
+        return new Stage(name, kind, opAmp, r2, legOhms, legCapacitor, inputCapacitor, biased);
     }
 
     public Stage withLegOhms(double r1) {
-        return new Stage(name, kind, opAmp, feedbackOhms, r1, legCapacitor, inputCapacitor);
+        return new Stage(name, kind, opAmp, feedbackOhms, r1, legCapacitor, inputCapacitor, biased);
     }
 
     public Stage withLegCapacitor(CapacitorSpec c) {
-        return new Stage(name, kind, opAmp, feedbackOhms, legOhms, c, inputCapacitor);
+        return new Stage(name, kind, opAmp, feedbackOhms, legOhms, c, inputCapacitor, biased);
     }
 
     public Stage withInputCapacitor(CapacitorSpec c) {
-        return new Stage(name, kind, opAmp, feedbackOhms, legOhms, legCapacitor, c);
+        return new Stage(name, kind, opAmp, feedbackOhms, legOhms, legCapacitor, c, biased);
+    }
+
+    public Stage withBiased(boolean b) {
+        return new Stage(name, kind, opAmp, feedbackOhms, legOhms, legCapacitor, inputCapacitor, b);
     }
 
     public Stage withOpAmp(OpAmpChoice o) {
-        return new Stage(name, kind, o, feedbackOhms, legOhms, legCapacitor, inputCapacitor);
+        return new Stage(name, kind, o, feedbackOhms, legOhms, legCapacitor, inputCapacitor, biased);
     }
 }
