@@ -27,6 +27,14 @@ class PowerOnLimitsTest {
     }
 
     @Test
+    @DisplayName("a stop time shorter than the smallest allowed step ends in STEP_TOO_SMALL")
+    void stopTimeBelowTheMinimumStepEndsInStepTooSmall() {
+        PowerOnOptions o = PowerOnOptions.of(TransientStepper.MIN_STEP_SECONDS / 10);
+        AnalysisException e = assertThrows(AnalysisException.class, () -> PowerOnTransient.run(rc(), o));
+        assertEquals(AnalysisException.Kind.STEP_TOO_SMALL, e.kind());
+    }
+
+    @Test
     @DisplayName("an unknown watched or load node is a BAD_REQUEST")
     void unknownNodesAreBadRequests() {
         AnalysisException watched = assertThrows(AnalysisException.class,

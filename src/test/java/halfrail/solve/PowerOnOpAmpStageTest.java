@@ -65,6 +65,11 @@ class PowerOnOpAmpStageTest {
         assertEquals(VCC / 2, dc.voltage("out"), 1e-3);
         assertTrue(result.settled());
         assertTrue(result.settleTimeSeconds().isPresent());
+        // the internal state is the unloaded output; with no output resistance it equals V(out)
+        double[] state = result.opAmpStates("U1");
+        assertEquals(dc.solution()[dc.system().stateIndex("U1")], state[state.length - 1],
+                PowerOnTransient.EARLY_STOP_FRACTION * result.settleBandVolts());
+        assertEquals(out[out.length / 2], state[state.length / 2], 1e-6);
     }
 
     @Test
