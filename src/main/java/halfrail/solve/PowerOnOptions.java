@@ -19,7 +19,8 @@ import java.util.List;
  *                              op-amp states, V; positive
  * @param stopWhenSettled       whether to stop before {@code stopSeconds} once every node and
  *                              op-amp state lies within {@link PowerOnTransient#EARLY_STOP_FRACTION}
- *                              of the band from its final value, after the last source ramp
+ *                              of the band from its final value, after the last source ramp, at
+ *                              {@link PowerOnTransient#EARLY_STOP_POINTS} accepted points in a row
  */
 public record PowerOnOptions(double stopSeconds, double settleBandVolts, List<String> watchedNodes,
                              List<String> loadNodes, double maxStepSeconds, double relativeTolerance,

@@ -17,7 +17,8 @@ public final class PowerOnResult {
     public enum Ending {
         /**
          * Stopped early: after the last source ramp every node voltage and op-amp state lay
-         * within {@link PowerOnTransient#EARLY_STOP_FRACTION} of the settle band from its final value.
+         * within {@link PowerOnTransient#EARLY_STOP_FRACTION} of the settle band from its final
+         * value, at {@link PowerOnTransient#EARLY_STOP_POINTS} accepted points in a row.
          */
         SETTLED,
         /** Reached the stop time; {@link #settled()} says whether the watched nodes were in band there. */

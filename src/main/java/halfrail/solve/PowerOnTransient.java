@@ -28,6 +28,11 @@ public final class PowerOnTransient {
      * of the settle band from its final value (after the last source ramp).
      */
     public static final double EARLY_STOP_FRACTION = 0.1;
+    /**
+     * Consecutive accepted points at which the early-stop condition must hold, so that a node
+     * merely passing through its final value does not end the run.
+     */
+    public static final int EARLY_STOP_POINTS = 3;
     /** An op-amp output within this distance of a swing-window limit counts as on the rail, V. */
     public static final double RAIL_MARGIN_VOLTS = 2 * MnaSystem.KNEE_VOLTS;
     /** A swing window narrower than this (supply not yet up) does not count as a rail, V. */
@@ -64,16 +69,16 @@ public final class PowerOnTransient {
 
         TransientStepper stepper = new TransientStepper(system, Bdf2.INSTANCE);
         double nearBand = EARLY_STOP_FRACTION * options.settleBandVolts();
+        int[] inBand = {0};
         TransientStepper.EarlyStop early = !options.stopWhenSettled() ? null : (t, x) -> {
-            if (t < lastRamp) {
-                return false;
-            }
-            for (int i = 0; i < x.length; i++) {
+            boolean near = t >= lastRamp;
+            for (int i = 0; i < x.length && near; i++) {
                 if (stepper.isVoltage(i) && Math.abs(x[i] - fin[i]) > nearBand) {
-                    return false;
+                    near = false;
                 }
             }
-            return true;
+            inBand[0] = near ? inBand[0] + 1 : 0;
+            return inBand[0] >= EARLY_STOP_POINTS;
         };
         TransientStepper.Trajectory run = stepper.run(new TransientStepper.Settings(options.stopSeconds(),
                 options.maxStepSeconds(), options.relativeTolerance(), options.voltageToleranceVolts(), breakPoints),
