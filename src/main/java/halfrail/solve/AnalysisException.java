@@ -18,6 +18,8 @@ public final class AnalysisException extends RuntimeException {
         NO_CONVERGENCE,
         /** The transient step size fell below its minimum. */
         STEP_TOO_SMALL,
+        /** The transient used up its budget of time steps before reaching its stop time. */
+        STEP_LIMIT,
         /** One or more nodes have no DC path to a defined voltage; {@link #nodes()} names them. */
         FLOATING_NODE,
         /** The request itself is invalid (unknown source or node, bad frequency range, …). */

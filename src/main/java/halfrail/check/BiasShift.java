@@ -1,0 +1,23 @@
+package halfrail.check;
+
+import java.util.List;
+
+/** Input bias current flowing through a large bias resistance moves the operating point (shift ≈ Ib·R). */
+final class BiasShift implements DesignCheck {
+    static final String CODE = "BIAS_CURRENT_SHIFT";
+
+    @Override
+    public void inspect(Evidence e, List<Finding> out) {
+        double limit = e.thresholds().maxBiasShiftVolts();
+        for (StageReport s : e.stages()) {
+            if (Math.abs(s.biasCurrentShiftVolts()) > limit) {
+                out.add(Finding.at(CODE, Severity.WARN, s.label() + ": the op-amps' input bias currents move the "
+                                + "non-inverting input by " + Text.volts(s.biasCurrentShiftVolts()) + " (limit "
+                                + Text.volts(limit) + ")",
+                        List.of("reference.biasOhms", s.designPath() + ".opAmp"),
+                        "lower the bias resistance (and the divider) or choose an op-amp with lower bias current",
+                        s.label(), LadderLevel.MID_RAIL));
+            }
+        }
+    }
+}

@@ -1,0 +1,21 @@
+package halfrail.check;
+
+import java.util.OptionalDouble;
+
+/**
+ * The signal chain from the source to the load, at the nominal supply.
+ *
+ * @param bandLowHz          the design's lowest frequency of interest, Hz
+ * @param bandHighHz         the design's highest frequency of interest, Hz
+ * @param peakGain           largest gain from the source to the load, V/V
+ * @param peakHz             where it occurs, Hz
+ * @param lowerCornerHz      the chain's real lower −3 dB point (from the complex response), Hz
+ * @param upperCornerHz      the chain's upper −3 dB point, Hz
+ * @param rippleAtLoadVolts  supply ripple reaching the load, V peak (0 without ripple)
+ * @param rippleGain         gain from the supply to the load at the ripple frequency, V/V
+ * @param referenceNoiseVoltsRms thermal noise of the reference network at the load over the band, V rms (at 300 K)
+ */
+public record ChainReport(double bandLowHz, double bandHighHz, double peakGain, double peakHz,
+                          OptionalDouble lowerCornerHz, OptionalDouble upperCornerHz, double rippleAtLoadVolts,
+                          double rippleGain, double referenceNoiseVoltsRms) {
+}

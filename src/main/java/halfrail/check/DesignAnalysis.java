@@ -1,0 +1,360 @@
+package halfrail.check;
+
+import halfrail.circuit.Capacitor;
+import halfrail.circuit.Circuit;
+import halfrail.circuit.CurrentSource;
+import halfrail.circuit.Element;
+import halfrail.circuit.OpAmp;
+import halfrail.circuit.OpAmpParams;
+import halfrail.circuit.Resistor;
+import halfrail.design.Design;
+import halfrail.design.DesignCircuit;
+import halfrail.design.DesignCircuits;
+import halfrail.design.StageNodes;
+import halfrail.design.Supply;
+import halfrail.parts.CapacitorTechnology;
+import halfrail.parts.LeakageLevel;
+import halfrail.parts.PartsLibrary;
+import halfrail.solve.AcAnalysis;
+import halfrail.solve.AcPassband;
+import halfrail.solve.AnalysisException;
+import halfrail.solve.DcSensitivity;
+import halfrail.solve.DcSolver;
+import halfrail.solve.FloatingNodes;
+import halfrail.solve.MnaSystem;
+import halfrail.solve.OpAmpState;
+import halfrail.solve.OperatingPoint;
+import halfrail.solve.PowerOnOptions;
+import halfrail.solve.PowerOnResult;
+import halfrail.solve.PowerOnTransient;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalDouble;
+
+/**
+ * The one entry point of the check layer: analyse a design and get back every stage's
+ * quiescent point and swing, the capacitors' voltages and corners, the chain's response, the
+ * power-on transient, the supply current, one voltage ladder per op-amp and the findings.
+ *
+ * <p>Everything numeric comes from the engine: DC operating points at the nominal, lowest and
+ * highest supply and at three leakage levels, small-signal responses at the nominal operating
+ * point, and a power-on transient. Analysis failures of the engine become findings, never
+ * exceptions; an invalid design (a {@link halfrail.design.DesignException}) is thrown, naming the field.
+ */
+public final class DesignAnalysis {
+    /** Absolute temperature for thermal-noise figures, K (stated with every noise number). */
+    public static final double NOISE_TEMPERATURE_KELVIN = 300;
+    /** Boltzmann constant, J/K (SI 2019 exact value). */
+    public static final double BOLTZMANN = 1.380649e-23;
+    /** Points per decade of the band when integrating noise. */
+    static final int NOISE_POINTS_PER_DECADE = 20;
+    /** The chain's response is searched for its peak and corners from this factor below the band to this factor above. */
+    static final double RESPONSE_RANGE_FACTOR = 1000;
+    /** The power-on transient runs at most this many times the settle-time limit, s. */
+    static final double POWER_ON_RUN_FACTOR = 5;
+
+    private DesignAnalysis() {}
+
+    /** Analyse {@code design} with default options (power-on transient included). */
+    public static DesignReport analyse(Design design) {
+        return analyse(design, true);
+    }
+
+    /**
+     * Analyse {@code design}.
+     *
+     * @param withPowerOn whether to run the power-on transient (the costliest part)
+     * @throws halfrail.design.DesignException when the design is invalid (the path names the field)
+     */
+    public static DesignReport analyse(Design design, boolean withPowerOn) {
+        DesignCircuit nominal = DesignCircuits.nominal(design);
+        List<String> floating = FloatingNodes.find(nominal.circuit());
+        if (!floating.isEmpty()) {
+            List<Finding> findings = new ArrayList<>();
+            for (String node : floating) {
+                findings.add(NoDcPath.finding(nominal, node));
+            }
+            return new DesignReport(design, Optional.of(AnalysisException.Kind.FLOATING_NODE),
+                    "no DC path at " + String.join(", ", floating), floating, Map.of(), List.of(), List.of(),
+                    Optional.empty(), Optional.empty(), Optional.empty(), List.of(), findings);
+        }
+        try {
+            return new Workup(design, nominal, withPowerOn).report();
+        } catch (AnalysisException e) {
+            Finding f = Finding.of("ANALYSIS_FAILED", Severity.FAIL,
+                    "the circuit could not be solved (" + e.kind() + "): " + e.getMessage(),
+                    List.of(), "check for values far outside the usual range, or simplify the circuit to find the cause");
+            return new DesignReport(design, Optional.of(e.kind()), e.getMessage(), List.of(), Map.of(), List.of(),
+                    List.of(), Optional.empty(), Optional.empty(), Optional.empty(), List.of(), List.of(f));
+        }
+    }
+
+    /** The computations behind one report. */
+    private static final class Workup {
+        private final Design design;
+        private final DesignCircuit nominal;
+        private final boolean withPowerOn;
+        private final PartsLibrary parts = PartsLibrary.builtIn();
+        private final double sourcePeak;
+
+        Workup(Design design, DesignCircuit nominal, boolean withPowerOn) {
+            this.design = design;
+            this.nominal = nominal;
+            this.withPowerOn = withPowerOn;
+            this.sourcePeak = design.source().voltsPeak();
+        }
+
+        DesignReport report() {
+            Supply supply = design.supply();
+            DcSolver solver = new DcSolver(MnaSystem.of(nominal.circuit()));
+            OperatingPoint op = solver.solve();
+            double[] guess = op.solution();
+            OperatingPoint low = solve(DesignCircuits.build(design, supply.lowVolts(), LeakageLevel.TYPICAL), guess);
+            OperatingPoint high = solve(DesignCircuits.build(design, supply.highVolts(), LeakageLevel.TYPICAL), guess);
+            DesignCircuit noLeakCircuit = DesignCircuits.build(design, supply.nominalVolts(), LeakageLevel.NONE);
+            OperatingPoint noLeak = solve(noLeakCircuit, guess);
+            OperatingPoint limitLeak = solve(DesignCircuits.build(design, supply.nominalVolts(), LeakageLevel.LIMIT),
+                    guess);
+            OperatingPoint noBias = solve(withoutBiasCurrents(nominal.circuit()), guess);
+            Map<String, OperatingPoint> oneLeaking = new LinkedHashMap<>();
+            for (Capacitor c : technologyCapacitors(noLeakCircuit.circuit())) {
+                double g = technology(c).leakageSiemens(c.farads(), c.ratedVolts(), LeakageLevel.LIMIT);
+                Circuit one = noLeakCircuit.circuit().replace(c.name(), e -> ((Capacitor) e).withLeakage(g));
+                oneLeaking.put(c.name(), solve(one, guess));
+            }
+
+            AcAnalysis ac = new AcAnalysis(op);
+            DcSensitivity linear = DcSensitivity.ignoringLimits(op);
+            double bandLow = design.source().bandLowHz();
+            double bandHigh = design.source().bandHighHz();
+            String sig = nominal.signalSource();
+
+            List<StageReport> stages = new ArrayList<>();
+            List<Ladder> ladders = new ArrayList<>();
+            String previousOut = "src";
+            for (StageNodes sn : nominal.opAmps()) {
+                OpAmpState st = op.opAmp(sn.opAmp()).orElseThrow();
+                OpAmpState stLow = low.opAmp(sn.opAmp()).orElseThrow();
+                OpAmpState stHigh = high.opAmp(sn.opAmp()).orElseThrow();
+                OpAmpParams p = ((OpAmp) nominal.circuit().element(sn.opAmp()).orElseThrow()).params();
+                double outGain = ac.passband(sig, sn.out(), bandLow, bandHigh).peakMagnitude();
+                double inGain = ac.passband(sig, sn.inPlus(), bandLow, bandHigh).peakMagnitude();
+                double signalPeak = outGain * sourcePeak;
+                double inputPeak = inGain * sourcePeak;
+                double centre = Math.sqrt(bandLow * bandHigh);
+                double stageGain;
+                if (sn.signal()) {
+                    double before = ac.response(sig, previousOut, centre).magnitude();
+                    double after = ac.response(sig, sn.out(), centre).magnitude();
+                    stageGain = before > 0 ? after / before : 0;
+                    previousOut = sn.out();
+                } else {
+                    stageGain = 0;
+                }
+                SwingReport swNom = SwingReport.of(nominal.supplyVolts(), st.outputVolts(), st.swingLowVolts(),
+                        st.swingHighVolts(), signalPeak, sourcePeak, st.saturated());
+                SwingReport swLow = SwingReport.of(supply.lowVolts(), stLow.outputVolts(), stLow.swingLowVolts(),
+                        stLow.swingHighVolts(), signalPeak, sourcePeak, stLow.saturated());
+                SwingReport swHigh = SwingReport.of(supply.highVolts(), stHigh.outputVolts(), stHigh.swingLowVolts(),
+                        stHigh.swingHighVolts(), signalPeak, sourcePeak, stHigh.saturated());
+                double biasGain = linear.gainFromNode(nominal.referenceNode(), sn.out());
+                if (!sn.signal()) {
+                    biasGain = linear.gainFromNode("ref", sn.out());
+                }
+                double outNoLeak = noLeak.voltage(sn.out());
+                double drift = limitLeak.voltage(sn.out()) - outNoLeak;
+                Map<String, Double> byCap = new LinkedHashMap<>();
+                oneLeaking.forEach((name, o) -> byCap.put(name, o.voltage(sn.out()) - outNoLeak));
+                double biasShift = op.voltage(sn.inPlus()) - noBias.voltage(sn.inPlus());
+                double fullPower = signalPeak > 0 ? p.slewRateVoltsPerSecond() / (2 * Math.PI * signalPeak)
+                        : Double.POSITIVE_INFINITY;
+                boolean supplyOk = supply.lowVolts() >= p.supplyMinVolts() && supply.highVolts() <= p.supplyMaxVolts();
+                boolean cmPeaks = st.inPlusVolts() - inputPeak >= st.commonModeLowVolts()
+                        && st.inPlusVolts() + inputPeak <= st.commonModeHighVolts();
+                stages.add(new StageReport(sn.label(), sn.designPath(), sn.opAmp(), sn.signal(), st.inPlusVolts(),
+                        st.inMinusVolts(), st.commonModeLowVolts(), st.commonModeHighVolts(), st.commonModeOk(),
+                        inputPeak, cmPeaks, swNom, swLow, swHigh, stageGain, biasGain, drift, byCap, biasShift,
+                        fullPower, supplyOk, List.of()));
+                ladders.add(new Ladder(sn.label(), sn.designPath(), nominal.supplyVolts(), supply.lowVolts(),
+                        st.swingLowVolts(), st.swingHighVolts(), stLow.swingHighVolts(), st.commonModeLowVolts(),
+                        st.commonModeHighVolts(), op.voltage(nominal.referenceNode()), st.outputVolts(),
+                        st.outputVolts() - signalPeak, st.outputVolts() + signalPeak, OptionalDouble.empty(),
+                        OptionalDouble.empty(), drift));
+            }
+
+            List<CapacitorReport> capacitors = new ArrayList<>();
+            for (Capacitor c : technologyCapacitors(nominal.circuit())) {
+                CapacitorTechnology tech = technology(c);
+                double dc = op.voltage(c.plus()) - op.voltage(c.minus());
+                double dcLow = low.voltage(c.plus()) - low.voltage(c.minus());
+                double dcHigh = high.voltage(c.plus()) - high.voltage(c.minus());
+                double sigPeak = ac.passband(sig, c.plus(), c.minus(), bandLow, bandHigh).peakMagnitude() * sourcePeak;
+                double worst = Math.max(Math.abs(dc), Math.max(Math.abs(dcLow), Math.abs(dcHigh))) + sigPeak;
+                double override = design.thresholds().capacitorDeratingOverride();
+                double derated = override > 0 ? override * c.ratedVolts() : tech.deratedVolts(c.ratedVolts());
+                double seen = linear.resistanceBetween(c.plus(), c.minus());
+                double corner = 1 / (2 * Math.PI * seen * c.farads());
+                double leak = tech.leakageAmps(c.farads(), c.ratedVolts(), Math.abs(dc), LeakageLevel.LIMIT);
+                capacitors.add(new CapacitorReport(c.name(), nominal.designPath(c.name()), tech.id(), c.farads(), dc,
+                        sigPeak, worst, c.ratedVolts(), derated, c.polarised(), seen, corner, leak));
+            }
+
+            ChainReport chain = chain(ac);
+            BatteryReport battery = battery(op);
+            Optional<PowerOnReport> powerOn = withPowerOn ? Optional.of(powerOn(op)) : Optional.empty();
+
+            Evidence evidence = new Evidence(design, nominal, stages, capacitors, chain, powerOn, battery);
+            List<Finding> findings = new ArrayList<>();
+            for (DesignCheck check : Checks.ALL) {
+                check.inspect(evidence, findings);
+            }
+            List<StageReport> withCodes = new ArrayList<>();
+            for (StageReport s : stages) {
+                withCodes.add(s.withFindings(findings.stream()
+                        .filter(f -> f.opAmp().filter(s.label()::equals).isPresent())
+                        .map(Finding::code).distinct().toList()));
+            }
+            return new DesignReport(design, Optional.empty(), "", List.of(), op.nodeVolts(), withCodes, capacitors,
+                    Optional.of(chain), powerOn, Optional.of(battery), ladders, findings);
+        }
+
+        private ChainReport chain(AcAnalysis ac) {
+            double bandLow = design.source().bandLowHz();
+            double bandHigh = design.source().bandHighHz();
+            AcPassband pb = ac.passband(nominal.signalSource(), nominal.loadNode(), bandLow / RESPONSE_RANGE_FACTOR,
+                    bandHigh * RESPONSE_RANGE_FACTOR);
+            Supply supply = design.supply();
+            double rippleGain = 0;
+            double ripple = 0;
+            if (supply.rippleVoltsPeak() > 0) {
+                rippleGain = ac.response(nominal.supplySource(), nominal.loadNode(), supply.rippleHz()).magnitude();
+                ripple = rippleGain * supply.rippleVoltsPeak();
+            }
+            return new ChainReport(bandLow, bandHigh, pb.peakMagnitude(), pb.peakHz(), pb.lowerCornerHz(),
+                    pb.upperCornerHz(), ripple, rippleGain, referenceNoise());
+        }
+
+        /**
+         * Thermal noise of the reference network's resistors at the load, integrated over the band:
+         * each resistor R contributes a noise current √(4kT/R) across itself (Johnson 1928, Nyquist 1928),
+         * carried to the load by the circuit's own transimpedance.
+         */
+        private double referenceNoise() {
+            Circuit.Builder b = nominal.circuit().toBuilder();
+            List<String> noiseSources = new ArrayList<>();
+            Map<String, Double> conductance = new HashMap<>();
+            for (Element e : nominal.circuit().elements()) {
+                if (e instanceof Resistor r && isReferenceResistor(r.name())) {
+                    String name = "INOISE_" + r.name();
+                    b.add(new CurrentSource(name, r.a(), r.b(), 0));
+                    noiseSources.add(name);
+                    conductance.put(name, 1 / r.ohms());
+                }
+            }
+            if (noiseSources.isEmpty()) {
+                return 0;
+            }
+            Circuit noisy = b.build();
+            AcAnalysis ac = AcAnalysis.of(noisy);
+            double lo = design.source().bandLowHz();
+            double hi = design.source().bandHighHz();
+            int points = Math.max(2, (int) Math.ceil(Math.log10(hi / lo) * NOISE_POINTS_PER_DECADE) + 1);
+            double total = 0;
+            double prevF = 0;
+            double prevDensity = 0;
+            for (int k = 0; k < points; k++) {
+                double f = lo * Math.pow(hi / lo, k / (double) (points - 1));
+                double density = 0; // V²/Hz
+                for (String s : noiseSources) {
+                    double z = ac.response(s, nominal.loadNode(), f).magnitude();
+                    density += 4 * BOLTZMANN * NOISE_TEMPERATURE_KELVIN * conductance.get(s) * z * z;
+                }
+                if (k > 0) {
+                    total += 0.5 * (density + prevDensity) * (f - prevF);
+                }
+                prevF = f;
+                prevDensity = density;
+            }
+            return Math.sqrt(total);
+        }
+
+        private static boolean isReferenceResistor(String name) {
+            return name.equals("RA") || name.equals("RB") || name.equals("RISO") || name.startsWith("RBIAS");
+        }
+
+        private BatteryReport battery(OperatingPoint op) {
+            double total = op.current(nominal.supplySource());
+            Resistor ra = (Resistor) nominal.circuit().element("RA").orElseThrow();
+            double divider = (op.voltage(ra.a()) - op.voltage(ra.b())) / ra.ohms();
+            double opAmps = op.opAmps().stream().mapToDouble(OpAmpState::supplyAmps).sum();
+            double leakage = 0;
+            for (Capacitor c : nominal.circuit().elements(Capacitor.class)) {
+                leakage += c.leakageSiemens() * Math.abs(op.voltage(c.plus()) - op.voltage(c.minus()));
+            }
+            OptionalDouble capacity = design.supply().capacityAmpHours();
+            OptionalDouble runtime = capacity.isPresent() && total > 0
+                    ? OptionalDouble.of(capacity.getAsDouble() / total) : OptionalDouble.empty();
+            return new BatteryReport(total, divider, opAmps, leakage, capacity, runtime);
+        }
+
+        private PowerOnReport powerOn(OperatingPoint op) {
+            double band = design.thresholds().settleBandFraction() * nominal.supplyVolts();
+            List<String> watched = new ArrayList<>();
+            for (StageNodes sn : nominal.opAmps()) {
+                watched.add(sn.out());
+            }
+            watched.add(nominal.loadNode());
+            double stop = Math.max(design.thresholds().maxSettleSeconds() * POWER_ON_RUN_FACTOR,
+                    10 * design.powerOnRampSeconds());
+            PowerOnOptions options = PowerOnOptions.of(stop).withSettleBand(band)
+                    .withWatchedNodes(watched.toArray(new String[0])).withLoadNodes(nominal.loadNode());
+            PowerOnResult r = PowerOnTransient.run(nominal.circuit(), options);
+            Map<String, Double> pinned = new LinkedHashMap<>();
+            for (StageNodes sn : nominal.opAmps()) {
+                r.railTime(sn.opAmp()).ifPresent(t -> pinned.put(sn.label(), t.secondsOnRail()));
+            }
+            double step = r.loadStep(nominal.loadNode()).map(PowerOnResult.LoadStep::peakDeviationVolts).orElse(0.0);
+            OptionalDouble settle = r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty());
+            double[] times = r.timesSeconds();
+            return new PowerOnReport(r.settled(), settle, band, times[times.length - 1], pinned, step);
+        }
+
+        private OperatingPoint solve(DesignCircuit dc, double[] guess) {
+            return solve(dc.circuit(), guess);
+        }
+
+        private OperatingPoint solve(Circuit c, double[] guess) {
+            DcSolver s = new DcSolver(MnaSystem.of(c));
+            try {
+                return s.solveFrom(guess);
+            } catch (AnalysisException e) {
+                if (e.kind() == AnalysisException.Kind.NO_CONVERGENCE || e.kind() == AnalysisException.Kind.SINGULAR) {
+                    return s.solve();
+                }
+                throw e;
+            }
+        }
+
+        private Circuit withoutBiasCurrents(Circuit c) {
+            Circuit result = c;
+            for (OpAmp o : c.elements(OpAmp.class)) {
+                OpAmpParams p = o.params();
+                result = result.replace(o.name(), e -> ((OpAmp) e).withParams(p.withInputErrors(p.offsetVolts(), 0, 0)));
+            }
+            return result;
+        }
+
+        private List<Capacitor> technologyCapacitors(Circuit c) {
+            return c.elements(Capacitor.class).stream().filter(x -> !x.technology().isEmpty()).toList();
+        }
+
+        private CapacitorTechnology technology(Capacitor c) {
+            return parts.requireCapacitorTechnology(c.technology());
+        }
+    }
+}

@@ -1,0 +1,36 @@
+package halfrail.check;
+
+import java.util.List;
+
+/**
+ * A rest point away from the middle of the swing window wastes headroom on one side:
+ * lost = 20·log10((window/2) / room on the worse side).
+ */
+final class OffCentre implements DesignCheck {
+    static final String CODE = "OFF_CENTRE";
+
+    @Override
+    public void inspect(Evidence e, List<Finding> out) {
+        for (StageReport s : e.stages()) {
+            SwingReport n = s.nominal();
+            double half = (n.swingHighVolts() - n.swingLowVolts()) / 2;
+            double worse = Math.min(n.availableLowVolts(), n.availableHighVolts());
+            if (n.saturated() || half <= 0 || worse <= 0 || !s.signal()) {
+                continue;
+            }
+            double lostDb = 20 * Math.log10(half / worse);
+            if (lostDb > e.thresholds().offCentreDb()) {
+                double centre = n.swingLowVolts() + half;
+                out.add(Finding.at(CODE, Severity.WARN,
+                        s.label() + ": the rest point " + Text.volts(n.quiescentVolts()) + " is "
+                                + Text.volts(Math.abs(n.quiescentVolts() - centre)) + " off the window's centre "
+                                + Text.volts(centre) + ", losing " + Text.db(lostDb) + " of headroom on the "
+                                + (n.clipsFirst() == Side.LOW ? "low" : "high") + " side",
+                        List.of("reference"),
+                        "move the mid-rail reference towards " + Text.volts(centre)
+                                + " (the divider ratio sets it; an op-amp whose window is symmetric about mid-rail also helps)",
+                        s.label(), LadderLevel.QUIESCENT));
+            }
+        }
+    }
+}

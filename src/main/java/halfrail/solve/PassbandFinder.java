@@ -1,0 +1,141 @@
+package halfrail.solve;
+
+import org.apache.commons.math3.analysis.UnivariateFunction;
+import org.apache.commons.math3.analysis.solvers.AllowedSolution;
+import org.apache.commons.math3.analysis.solvers.BracketingNthOrderBrentSolver;
+import org.apache.commons.math3.exception.MathIllegalArgumentException;
+import org.apache.commons.math3.exception.MathIllegalStateException;
+import org.apache.commons.math3.optim.MaxEval;
+import org.apache.commons.math3.optim.nonlinear.scalar.GoalType;
+import org.apache.commons.math3.optim.univariate.BrentOptimizer;
+import org.apache.commons.math3.optim.univariate.SearchInterval;
+import org.apache.commons.math3.optim.univariate.UnivariateObjectiveFunction;
+import org.apache.commons.math3.optim.univariate.UnivariatePointValuePair;
+
+import java.util.OptionalDouble;
+import java.util.function.DoubleUnaryOperator;
+
+/**
+ * Finds the peak of |H(f)| over a frequency range and the −3.0103 dB points either side of it,
+ * working on u = log10 f. A log grid of {@link AcAnalysis#GRID_POINTS_PER_DECADE} points per
+ * decade (at most {@link AcAnalysis#MAX_GRID_POINTS}) locates the peak and brackets each corner;
+ * Brent's method refines the peak and a bracketing Brent solver the corners. Features narrower
+ * than the grid spacing (a sharp resonance, a notch dipping below the corner level between two
+ * grid points) can be missed.
+ */
+final class PassbandFinder {
+    /** Ratio of corner to peak magnitude, 1/√2 (−3.0103 dB). */
+    static final double CORNER_RATIO = 1 / Math.sqrt(2);
+    /** Relative tolerance of the peak search on log10 f. */
+    static final double PEAK_RELATIVE_TOLERANCE = 1e-10;
+    /** Absolute tolerance of the peak search on log10 f, decades. */
+    static final double PEAK_ABSOLUTE_TOLERANCE_DECADES = 1e-10;
+    /** Relative accuracy of the corner solve on log10 f. */
+    static final double CORNER_RELATIVE_ACCURACY = 1e-14;
+    /** Absolute accuracy of the corner solve on log10 f, decades (about 2e-13 relative in f). */
+    static final double CORNER_ABSOLUTE_ACCURACY_DECADES = 1e-13;
+    /** Accuracy of the corner solve on |H|/peak − 1/√2. */
+    static final double CORNER_FUNCTION_ACCURACY = 1e-15;
+    /** Order of the bracketing Brent solver. */
+    static final int CORNER_SOLVER_ORDER = 5;
+
+    private final DoubleUnaryOperator magnitude;
+    private final int maxPeakEvaluations;
+    private final int maxCornerEvaluations;
+
+    /** @param magnitude |H| as a function of frequency in Hz */
+    PassbandFinder(DoubleUnaryOperator magnitude) {
+        this(magnitude, AcAnalysis.MAX_PEAK_EVALUATIONS, AcAnalysis.MAX_CORNER_EVALUATIONS);
+    }
+
+    /** With other evaluation limits than {@link AcAnalysis}'s (tests reach them on purpose). */
+    PassbandFinder(DoubleUnaryOperator magnitude, int maxPeakEvaluations, int maxCornerEvaluations) {
+        this.magnitude = magnitude;
+        this.maxPeakEvaluations = maxPeakEvaluations;
+        this.maxCornerEvaluations = maxCornerEvaluations;
+    }
+
+    AcPassband find(double fStartHz, double fStopHz) {
+        double u0 = Math.log10(fStartHz);
+        double u1 = Math.log10(fStopHz);
+        int m = (int) Math.min(AcAnalysis.MAX_GRID_POINTS,
+                Math.max(3, Math.ceil((u1 - u0) * AcAnalysis.GRID_POINTS_PER_DECADE) + 1));
+        double[] u = new double[m];
+        double[] mag = new double[m];
+        int best = 0;
+        for (int k = 0; k < m; k++) {
+            u[k] = k == m - 1 ? u1 : u0 + (u1 - u0) * k / (m - 1);
+            mag[k] = at(u[k]);
+            if (mag[k] > mag[best]) {
+                best = k;
+            }
+        }
+        double uPeak = u[best];
+        double peak = mag[best];
+        if (peak == 0) {
+            return new AcPassband(Math.pow(10, uPeak), 0, OptionalDouble.empty(), OptionalDouble.empty());
+        }
+        UnivariatePointValuePair refined = refinePeak(u[Math.max(0, best - 1)], u[Math.min(m - 1, best + 1)], uPeak);
+        if (refined.getValue() > peak) {
+            uPeak = refined.getPoint();
+            peak = refined.getValue();
+        }
+        double ref = peak;
+        UnivariateFunction below = x -> at(x) / ref - CORNER_RATIO;
+        OptionalDouble lower = OptionalDouble.empty();
+        double last = uPeak;
+        for (int k = m - 1; k >= 0; k--) {
+            if (u[k] >= uPeak) {
+                continue;
+            }
+            if (mag[k] / ref - CORNER_RATIO < 0) {
+                lower = OptionalDouble.of(Math.pow(10, corner(below, u[k], last, "lower")));
+                break;
+            }
+            last = u[k];
+        }
+        OptionalDouble upper = OptionalDouble.empty();
+        last = uPeak;
+        for (int k = 0; k < m; k++) {
+            if (u[k] <= uPeak) {
+                continue;
+            }
+            if (mag[k] / ref - CORNER_RATIO < 0) {
+                upper = OptionalDouble.of(Math.pow(10, corner(below, last, u[k], "upper")));
+                break;
+            }
+            last = u[k];
+        }
+        return new AcPassband(Math.pow(10, uPeak), peak, lower, upper);
+    }
+
+    private double at(double log10Hz) {
+        return magnitude.applyAsDouble(Math.pow(10, log10Hz));
+    }
+
+    private UnivariatePointValuePair refinePeak(double lo, double hi, double start) {
+        BrentOptimizer optimizer = new BrentOptimizer(PEAK_RELATIVE_TOLERANCE, PEAK_ABSOLUTE_TOLERANCE_DECADES);
+        try {
+            return optimizer.optimize(new MaxEval(maxPeakEvaluations),
+                    new UnivariateObjectiveFunction(this::at), GoalType.MAXIMIZE,
+                    new SearchInterval(lo, hi, start));
+        } catch (MathIllegalStateException e) {
+            throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
+                    "the search for the peak gain did not converge within " + maxPeakEvaluations
+                            + " evaluations between " + Math.pow(10, lo) + " and " + Math.pow(10, hi) + " Hz");
+        }
+    }
+
+    private double corner(UnivariateFunction below, double lo, double hi, String which) {
+        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(CORNER_RELATIVE_ACCURACY,
+                CORNER_ABSOLUTE_ACCURACY_DECADES, CORNER_FUNCTION_ACCURACY, CORNER_SOLVER_ORDER);
+        try {
+            return solver.solve(maxCornerEvaluations, below, lo, hi, AllowedSolution.ANY_SIDE);
+        } catch (MathIllegalStateException | MathIllegalArgumentException e) {
+            throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
+                    "the search for the " + which + " −3 dB point did not converge within "
+                            + maxCornerEvaluations + " evaluations between " + Math.pow(10, lo)
+                            + " and " + Math.pow(10, hi) + " Hz");
+        }
+    }
+}
