@@ -1,0 +1,49 @@
+package halfrail.bench;
+
+import halfrail.circuit.Circuit;
+import halfrail.solve.PowerOnOptions;
+import halfrail.solve.PowerOnResult;
+import halfrail.solve.PowerOnTransient;
+import org.openjdk.jmh.annotations.Benchmark;
+import org.openjdk.jmh.annotations.BenchmarkMode;
+import org.openjdk.jmh.annotations.Fork;
+import org.openjdk.jmh.annotations.Measurement;
+import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Param;
+import org.openjdk.jmh.annotations.Scope;
+import org.openjdk.jmh.annotations.Setup;
+import org.openjdk.jmh.annotations.State;
+import org.openjdk.jmh.annotations.Warmup;
+
+import java.util.concurrent.TimeUnit;
+
+/**
+ * Power-on transient over 10 s of circuit time, time constants from 1 µs (input filter) to 2 s
+ * (reference decoupling), run to the stop time (no early stop). Target: at most 20 ms median
+ * for the three-stage chain.
+ */
+@State(Scope.Thread)
+@BenchmarkMode(Mode.SampleTime)
+@OutputTimeUnit(TimeUnit.MILLISECONDS)
+@Warmup(iterations = 3, time = 2)
+@Measurement(iterations = 5, time = 2)
+@Fork(1)
+public class PowerOnBench {
+    @Param({"1", "3", "4", "16"})
+    public int stages;
+
+    private Circuit circuit;
+    private PowerOnOptions options;
+
+    @Setup
+    public void setUp() {
+        circuit = BenchCircuits.chain(stages);
+        options = PowerOnOptions.of(10).withStopWhenSettled(false);
+    }
+
+    @Benchmark
+    public PowerOnResult powerOn() {
+        return PowerOnTransient.run(circuit, options);
+    }
+}
