@@ -136,7 +136,7 @@ public final class SpiceValues {
             throw new IllegalArgumentException("not a finite value: " + value);
         }
         if (value == 0) {
-            return "0";
+            return Double.doubleToRawLongBits(value) == 0 ? "0" : "-0";
         }
         BigDecimal exact = new BigDecimal(Double.toString(value));
         double magnitude = Math.abs(value);
