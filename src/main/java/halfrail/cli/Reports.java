@@ -21,7 +21,6 @@ final class Reports {
         StringBuilder b = new StringBuilder();
         for (CheckCommand.Outcome o : outcomes) {
             if (o.report() == null) {
-                b.append(o.file()).append(": not checked (bad input, see the message)\n\n");
                 continue;
             }
             FileReport r = o.report();
@@ -88,7 +87,7 @@ final class Reports {
             b.append("| node | DC (V) |\n|---|---:|\n");
             for (Map.Entry<String, Double> e : r.nodeVolts().entrySet()) {
                 String name = md(e.getKey()) + (r.outputNode().filter(e.getKey()::equals).isPresent() ? " (output)" : "");
-                b.append("| ").append(name).append(" | ").append(volts(e.getValue())).append(" |\n");
+                b.append("| ").append(name).append(" | ").append(number(e.getValue())).append(" |\n");
             }
             b.append('\n');
             if (!r.opAmps().isEmpty()) {
@@ -96,7 +95,7 @@ final class Reports {
                         + " | common mode ok |\n|---|---:|---:|---:|---:|---:|---|---|\n");
                 for (OpAmpState s : r.opAmps()) {
                     b.append(String.format(Locale.ROOT, "| %s | %s | %s | %s | %.3f | %.3f | %s | %s |%n",
-                            md(s.name()), volts(s.outputVolts()), volts(s.inPlusVolts()), volts(s.inMinusVolts()),
+                            md(s.name()), number(s.outputVolts()), number(s.inPlusVolts()), number(s.inMinusVolts()),
                             s.swingLowVolts(), s.swingHighVolts(), s.saturated() ? "yes" : "no",
                             s.commonModeOk() ? "yes" : "no"));
                 }
@@ -183,6 +182,10 @@ final class Reports {
 
     private static String volts(Double v) {
         return v == null ? "undefined" : String.format(Locale.ROOT, "%.4f V", v);
+    }
+
+    private static String number(Double v) {
+        return v == null ? "undefined" : String.format(Locale.ROOT, "%.4f", v);
     }
 
     private static String pad(String s, int width) {

@@ -59,6 +59,7 @@ public final class NetlistException extends RuntimeException {
     private final int line;
     private final int column;
     private final String expected;
+    private final String problem;
 
     /**
      * @param kind     what went wrong
@@ -73,6 +74,7 @@ public final class NetlistException extends RuntimeException {
         this.line = Math.max(0, line);
         this.column = Math.max(0, column);
         this.expected = expected == null ? "" : expected;
+        this.problem = oneLine(problem);
     }
 
     NetlistException(Kind kind, int line, int column, String problem, String expected, Throwable cause) {
@@ -118,6 +120,11 @@ public final class NetlistException extends RuntimeException {
     /** 1-based column within the line; 0 when not given. */
     public int column() {
         return column;
+    }
+
+    /** What was wrong, without the position and the expectation. */
+    public String problem() {
+        return problem;
     }
 
     /** What the reader expected at that place; empty when nothing specific. */

@@ -509,8 +509,7 @@ public final class NetlistReader {
             try {
                 return SpiceValues.parse(t.text());
             } catch (NetlistException e) {
-                throw new NetlistException(e.kind(), t.line(), t.column(),
-                        e.getMessage(), e.expected());
+                throw new NetlistException(e.kind(), t.line(), t.column(), e.problem(), e.expected());
             }
         }
 
