@@ -68,6 +68,15 @@ final class Reports {
             }
             b.append("  verdict: ").append(r.verdict()).append("\n\n");
         }
+        if (outcomes.size() > 1) {
+            Map<String, Long> counts = new java.util.TreeMap<>();
+            for (CheckCommand.Outcome o : outcomes) {
+                counts.merge(o.report() == null ? "bad input" : o.report().verdict(), 1L, Long::sum);
+            }
+            StringBuilder summary = new StringBuilder();
+            counts.forEach((k, v) -> summary.append(summary.length() == 0 ? "" : ", ").append(v).append(' ').append(k));
+            b.append(outcomes.size()).append(" files: ").append(summary).append('\n');
+        }
         return b.toString();
     }
 

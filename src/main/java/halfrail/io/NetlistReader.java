@@ -136,7 +136,7 @@ public final class NetlistReader {
     private record ModelDef(String name, OpAmpParams params, int line) {}
 
     /** An op-amp waiting for its model, which may be defined further down. */
-    private record PendingOpAmp(Token name, Token[] nodes, Token model) {}
+    private record PendingOpAmp(Token name, List<String> nodes, Token model) {}
 
     /** One state of one parse; not reused. */
     private static final class Parse {
@@ -349,16 +349,12 @@ public final class NetlistReader {
             Token model = field(t, 6, "a model name after the five nodes of " + name.text());
             noMore(t, 7);
             checkName(model, "model name");
-            String[] names = new String[5];
-            for (int i = 0; i < 5; i++) {
-                names[i] = node(nodes[i]);
+            List<String> names = new ArrayList<>(5);
+            for (Token n : nodes) {
+                names.add(node(n));
             }
-            elements.add(new PendingOpAmp(name, nodes, model));
+            elements.add(new PendingOpAmp(name, names, model));
             elementLines.add(name.line());
-            // node names are resolved now so that node order follows the file
-            for (int i = 0; i < 5; i++) {
-                nodes[i] = new Token(names[i], nodes[i].line(), nodes[i].column());
-            }
         }
 
         private void model(List<Token> t) {
@@ -455,9 +451,9 @@ public final class NetlistReader {
                                     "a '.model " + o.model().text() + " opamp (...)' line");
                         }
                         modelUsed.put(o.model().lower(), true);
-                        Token[] n = o.nodes();
-                        b.add(new OpAmp(o.name().text(), n[0].text(), n[1].text(), n[2].text(), n[3].text(),
-                                n[4].text(), m.params()));
+                        List<String> n = o.nodes();
+                        b.add(new OpAmp(o.name().text(), n.get(0), n.get(1), n.get(2), n.get(3), n.get(4),
+                                m.params()));
                         opAmpModels.put(o.name().text(), m.name());
                     } else {
                         b.add(((ElementFactory) pending).make());

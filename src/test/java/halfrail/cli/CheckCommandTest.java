@@ -183,6 +183,7 @@ class CheckCommandTest {
         List<String> files = new ArrayList<>();
         r.json().get("files").forEach(f -> files.add(Path.of(f.get("file").asText()).getFileName().toString()));
         assertEquals(List.of("faulty-review.cir", "nine-volt-boost.cir", "usb-line-driver.cir"), files);
+        assertTrue(run("check", "samples").out().contains("3 files: 1 fail, 2 pass"));
     }
 
     @Test

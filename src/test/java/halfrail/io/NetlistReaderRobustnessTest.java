@@ -8,6 +8,7 @@ import net.jqwik.api.Label;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
 import net.jqwik.api.constraints.StringLength;
+import net.jqwik.api.statistics.Statistics;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -34,8 +35,9 @@ class NetlistReaderRobustnessTest {
     private static void parseOrNetlistException(String text) {
         try {
             NetlistReader.parse(text);
+            Statistics.collect("read");
         } catch (NetlistException expected) {
-            // the one permitted failure
+            Statistics.collect(expected.kind());
         } catch (RuntimeException e) {
             fail("the reader threw " + e + " for:\n" + text, e);
         }
