@@ -22,7 +22,9 @@ import java.util.Set;
  * Writes a {@link Circuit} as netlist text in the subset that {@link NetlistReader} reads.
  *
  * <p>A circuit made only of what the subset expresses reads back equal: same title, same
- * elements in the same order, same nodes. Values are written with SPICE scale suffixes
+ * elements in the same order, same nodes (the reader declares nodes in order of first use, so a
+ * circuit whose nodes were declared in another order, or that declares unused nodes, reads back
+ * with its nodes in order of first use; unused nodes are listed in a comment). Values are written with SPICE scale suffixes
  * ({@code 4.7k}, {@code 1meg}, {@code 100n}) or in exponent form, exactly. Op-amps with equal
  * parameters share one {@code .model}; model names come from the netlist's
  * {@link Netlist#opAmpModels()} where given, otherwise {@code opamp1}, {@code opamp2}, ….
