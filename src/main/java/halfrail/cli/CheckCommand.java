@@ -1,0 +1,264 @@
+package halfrail.cli;
+
+import halfrail.circuit.Circuit;
+import halfrail.circuit.Element;
+import halfrail.circuit.Resistor;
+import halfrail.circuit.VoltageSource;
+import halfrail.io.Netlist;
+import halfrail.io.NetlistException;
+import halfrail.io.NetlistReader;
+import halfrail.solve.AnalysisException;
+import halfrail.solve.DcSolver;
+import halfrail.solve.FloatingNodes;
+import halfrail.solve.OpAmpState;
+import halfrail.solve.OperatingPoint;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.DirectoryStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.concurrent.Callable;
+
+/**
+ * {@code check FILE|DIR...}: reads each netlist, finds floating nodes, solves the DC operating
+ * point and reports nodes, op-amps and findings. Exit code per {@link ExitCodes}.
+ */
+@Command(name = "check", mixinStandardHelpOptions = true,
+        description = "Check netlists (*.cir, *.net, *.sp): operating point, floating nodes, op-amps at rest.",
+        exitCodeListHeading = "%nExit codes:%n",
+        exitCodeList = {"0:nothing at or above the --fail-on severity", "1:a finding at or above it",
+                "2:bad input (unreadable file, parse error, invalid option)", "3:internal error"})
+public final class CheckCommand implements Callable<Integer> {
+    /** File name endings read as netlists when a directory is given. */
+    public static final List<String> NETLIST_ENDINGS = List.of(".cir", ".net", ".sp");
+    /** Largest number of nodes {@code check} solves; the dense solver is meant for stage-sized circuits. */
+    public static final int MAX_NODES = 500;
+    /**
+     * Resistance in Ω that ties each floating node to ground so that the rest of the circuit can
+     * still be solved; the tied nodes' voltages are reported as undefined. Low enough that its
+     * conductance stays well above the LU pivot threshold next to an op-amp's open-loop gain.
+     */
+    public static final double FLOATING_TIE_OHMS = 1e6;
+    /** Default power-on ramp of every DC voltage source, s. */
+    public static final double DEFAULT_RAMP_SECONDS = 1e-3;
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(arity = "1..*", paramLabel = "FILE|DIR", description = "Netlist files, or directories of them.")
+    List<Path> paths = new ArrayList<>();
+
+    @Option(names = "--format", paramLabel = "FORMAT", description = "text, json or markdown (default: ${DEFAULT-VALUE}).")
+    ReportFormat format = ReportFormat.TEXT;
+
+    @Option(names = "--fail-on", paramLabel = "SEVERITY",
+            description = "Lowest severity that makes the exit code 1: fail or warn (default: ${DEFAULT-VALUE}).")
+    Severity failOn = Severity.FAIL;
+
+    @Option(names = "--input", paramLabel = "SOURCE",
+            description = "Voltage source whose AC magnitude drives the response (default: the only one with AC).")
+    String input;
+
+    @Option(names = "--output", paramLabel = "NODE",
+            description = "Output node (default: the file's '* output: NODE' comment).")
+    String output;
+
+    @Option(names = "--ramp", paramLabel = "SECONDS", converter = SpiceValueConverter.class,
+            description = "Power-on ramp of every DC voltage source, s (default: 1m).")
+    double rampSeconds = DEFAULT_RAMP_SECONDS;
+
+    @Option(names = "--settle-band", paramLabel = "VOLTS", converter = SpiceValueConverter.class,
+            description = "Settling band, V (default: 1 % of the largest supply).")
+    Double settleBandVolts;
+
+    @Option(names = "--watch", paramLabel = "NODE", split = ",",
+            description = "Nodes watched for settling besides every op-amp output and the output node.")
+    List<String> watch = new ArrayList<>();
+
+    /** The result for one file: a report, or the one-line reason it is bad input. */
+    record Outcome(String file, FileReport report, String error) {}
+
+    @Override
+    public Integer call() {
+        validateOptions();
+        List<Path> files = new ArrayList<>();
+        List<Outcome> outcomes = new ArrayList<>();
+        for (Path p : paths) {
+            if (Files.isDirectory(p)) {
+                List<Path> found = netlistsIn(p);
+                if (found.isEmpty()) {
+                    outcomes.add(new Outcome(p.toString(), null,
+                            p + ": no netlist files (" + String.join(", ", NETLIST_ENDINGS) + ") in this directory"));
+                }
+                files.addAll(found);
+            } else {
+                files.add(p);
+            }
+        }
+        for (Path f : files) {
+            try {
+                outcomes.add(new Outcome(f.toString(), analyse(f), null));
+            } catch (BadInputException e) {
+                outcomes.add(new Outcome(f.toString(), null, e.getMessage()));
+            }
+        }
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        out.print(switch (format) {
+            case TEXT -> Reports.text(outcomes);
+            case MARKDOWN -> Reports.markdown(outcomes);
+            case JSON -> Reports.json(outcomes, failOn);
+        });
+        out.flush();
+        boolean bad = false;
+        boolean failing = false;
+        for (Outcome o : outcomes) {
+            if (o.error() != null) {
+                err.println(o.error());
+                bad = true;
+            } else if (o.report().failsAt(failOn)) {
+                failing = true;
+            }
+        }
+        err.flush();
+        return bad ? ExitCodes.BAD_INPUT : failing ? ExitCodes.FINDING : ExitCodes.PASS;
+    }
+
+    private void validateOptions() {
+        if (!Double.isFinite(rampSeconds) || rampSeconds < 0) {
+            throw new ParameterException(spec.commandLine(),
+                    "--ramp must be zero or a positive number of seconds, got " + rampSeconds);
+        }
+        if (settleBandVolts != null && (!Double.isFinite(settleBandVolts) || settleBandVolts <= 0)) {
+            throw new ParameterException(spec.commandLine(),
+                    "--settle-band must be a positive number of volts, got " + settleBandVolts);
+        }
+        for (String w : watch) {
+            if (w.isBlank()) {
+                throw new ParameterException(spec.commandLine(), "--watch holds an empty node name");
+            }
+        }
+    }
+
+    private static List<Path> netlistsIn(Path dir) {
+        List<Path> found = new ArrayList<>();
+        try (DirectoryStream<Path> s = Files.newDirectoryStream(dir)) {
+            for (Path p : s) {
+                String name = p.getFileName().toString().toLowerCase(Locale.ROOT);
+                if (Files.isRegularFile(p) && NETLIST_ENDINGS.stream().anyMatch(name::endsWith)) {
+                    found.add(p);
+                }
+            }
+        } catch (IOException | SecurityException e) {
+            throw new BadInputException(dir + ": cannot list the directory (" + e.getClass().getSimpleName() + ")");
+        }
+        found.sort(null);
+        return found;
+    }
+
+    /** Read, validate against the options, solve and judge one netlist. */
+    FileReport analyse(Path file) {
+        String name = file.toString();
+        if (name.toLowerCase(Locale.ROOT).endsWith(".json")) {
+            throw new BadInputException(name + ": design files (.json) are not read by this version; give a netlist");
+        }
+        Netlist netlist;
+        try {
+            netlist = NetlistReader.read(file);
+        } catch (NetlistException e) {
+            throw new BadInputException(name + ": " + e.getMessage());
+        }
+        Circuit circuit = netlist.circuit();
+        if (circuit.nodes().size() > MAX_NODES) {
+            throw new BadInputException(name + ": " + circuit.nodes().size() + " nodes, more than the "
+                    + MAX_NODES + " that check solves");
+        }
+        Optional<String> outputNode = netlist.outputNode();
+        if (output != null) {
+            outputNode = Optional.of(node(circuit, output, name, "--output"));
+        }
+        for (String w : watch) {
+            node(circuit, w.strip(), name, "--watch");
+        }
+        if (input != null && circuit.elements(VoltageSource.class).stream()
+                .noneMatch(v -> v.name().equalsIgnoreCase(input))) {
+            throw new BadInputException(name + ": --input names '" + input + "', which is not a voltage source"
+                    + " of this netlist");
+        }
+        Circuit powered = withRamp(circuit, rampSeconds);
+        List<String> floating = FloatingNodes.find(powered);
+        Set<String> floatingSet = new HashSet<>(floating);
+        List<Finding> findings = new ArrayList<>(NetlistFindings.floating(powered, floating));
+        Map<String, Double> volts = new LinkedHashMap<>();
+        List<OpAmpState> opAmps = List.of();
+        try {
+            OperatingPoint op = DcSolver.operatingPoint(floating.isEmpty() ? powered : tied(powered, floating));
+            for (String n : circuit.nodes()) {
+                volts.put(n, floatingSet.contains(n) ? null : op.voltage(n));
+            }
+            opAmps = op.opAmps();
+            findings.addAll(NetlistFindings.opAmps(powered, opAmps, floatingSet));
+        } catch (AnalysisException e) {
+            for (String n : circuit.nodes()) {
+                volts.put(n, null);
+            }
+            findings.add(NetlistFindings.noOperatingPoint(e.kind() + ": " + e.getMessage()));
+        }
+        List<String> notes = netlist.notes().stream().map(Netlist.Note::toString).toList();
+        // lowerCornerHz and settleSeconds stay null here: the AC and power-on transient analyses fill them.
+        return new FileReport(name, circuit.title(), outputNode, volts, opAmps, floating, null, null,
+                NetlistFindings.sorted(findings), notes);
+    }
+
+    private static String node(Circuit c, String wanted, String file, String option) {
+        for (String n : c.nodes()) {
+            if (n.equalsIgnoreCase(wanted)) {
+                return n;
+            }
+        }
+        throw new BadInputException(file + ": " + option + " names node '" + wanted + "', which is not a node"
+                + " of this netlist");
+    }
+
+    /** Every DC voltage source ramping from 0 over {@code seconds}; the DC point does not change. */
+    static Circuit withRamp(Circuit c, double seconds) {
+        Circuit out = c;
+        for (VoltageSource v : c.elements(VoltageSource.class)) {
+            out = out.replace(v.name(), e -> ((VoltageSource) e).withRamp(seconds));
+        }
+        return out;
+    }
+
+    /** A copy with each floating node tied to ground through {@link #FLOATING_TIE_OHMS}. */
+    static Circuit tied(Circuit c, List<String> floating) {
+        Set<String> names = new HashSet<>();
+        for (Element e : c.elements()) {
+            names.add(e.name().toLowerCase(Locale.ROOT));
+        }
+        Circuit.Builder b = c.toBuilder();
+        int i = 0;
+        for (String n : floating) {
+            String name;
+            do {
+                name = "Rtie" + (++i);
+            } while (names.contains(name.toLowerCase(Locale.ROOT)));
+            b.add(new Resistor(name, n, Circuit.GROUND, FLOATING_TIE_OHMS));
+        }
+        return b.build();
+    }
+}
