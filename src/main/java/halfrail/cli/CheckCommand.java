@@ -1,17 +1,14 @@
 package halfrail.cli;
 
 import halfrail.circuit.Circuit;
-import halfrail.circuit.Element;
-import halfrail.circuit.Resistor;
+import halfrail.check.CircuitAnalysis;
+import halfrail.check.CircuitReport;
+import halfrail.check.Severity;
 import halfrail.circuit.VoltageSource;
 import halfrail.io.Netlist;
 import halfrail.io.NetlistException;
 import halfrail.io.NetlistReader;
-import halfrail.solve.AnalysisException;
-import halfrail.solve.DcSolver;
-import halfrail.solve.FloatingNodes;
 import halfrail.solve.OpAmpState;
-import halfrail.solve.OperatingPoint;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -25,13 +22,10 @@ import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.HashSet;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.Optional;
-import java.util.Set;
+import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 
 /**
@@ -39,7 +33,7 @@ import java.util.concurrent.Callable;
  * point and reports nodes, op-amps and findings. Exit code per {@link ExitCodes}.
  */
 @Command(name = "check", mixinStandardHelpOptions = true,
-        description = "Check netlists (*.cir, *.net, *.sp): operating point, floating nodes, op-amps at rest.",
+        description = "Check netlists (*.cir, *.net, *.sp): operating point, floating nodes, op-amps at rest, lower corner, settle-up time.",
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {"0:nothing at or above the --fail-on severity", "1:a finding at or above it",
                 "2:bad input (unreadable file, parse error, invalid option)", "3:internal error"})
@@ -48,12 +42,6 @@ public final class CheckCommand implements Callable<Integer> {
     public static final List<String> NETLIST_ENDINGS = List.of(".cir", ".net", ".sp");
     /** Largest number of nodes {@code check} solves; the dense solver is meant for stage-sized circuits. */
     public static final int MAX_NODES = 500;
-    /**
-     * Resistance in Ω that ties each floating node to ground so that the rest of the circuit can
-     * still be solved; the tied nodes' voltages are reported as undefined. Low enough that its
-     * conductance stays well above the LU pivot threshold next to an op-amp's open-loop gain.
-     */
-    public static final double FLOATING_TIE_OHMS = 1e6;
     /** Default power-on ramp of every DC voltage source, s. */
     public static final double DEFAULT_RAMP_SECONDS = 1e-3;
 
@@ -192,37 +180,35 @@ public final class CheckCommand implements Callable<Integer> {
         if (output != null) {
             outputNode = Optional.of(node(circuit, output, name, "--output"));
         }
-        for (String w : watch) {
-            node(circuit, w.strip(), name, "--watch");
-        }
         if (input != null && circuit.elements(VoltageSource.class).stream()
                 .noneMatch(v -> v.name().equalsIgnoreCase(input))) {
             throw new BadInputException(name + ": --input names '" + input + "', which is not a voltage source"
                     + " of this netlist");
         }
         Circuit powered = withRamp(circuit, rampSeconds);
-        List<String> floating = FloatingNodes.find(powered);
-        Set<String> floatingSet = new HashSet<>(floating);
-        List<Finding> findings = new ArrayList<>(NetlistFindings.floating(powered, floating));
-        Map<String, Double> volts = new LinkedHashMap<>();
-        List<OpAmpState> opAmps = List.of();
-        try {
-            OperatingPoint op = DcSolver.operatingPoint(floating.isEmpty() ? powered : tied(powered, floating));
-            for (String n : circuit.nodes()) {
-                volts.put(n, floatingSet.contains(n) ? null : op.voltage(n));
-            }
-            opAmps = op.opAmps();
-            findings.addAll(NetlistFindings.opAmps(powered, opAmps, floatingSet));
-        } catch (AnalysisException e) {
-            for (String n : circuit.nodes()) {
-                volts.put(n, null);
-            }
-            findings.add(NetlistFindings.noOperatingPoint(e.kind() + ": " + e.getMessage()));
-        }
+        CircuitAnalysis.Options options = new CircuitAnalysis.Options(outputNode,
+                Optional.ofNullable(input).map(i -> sourceName(circuit, i)),
+                settleBandVolts == null ? OptionalDouble.empty() : OptionalDouble.of(settleBandVolts),
+                watch.stream().map(w -> node(circuit, w.strip(), name, "--watch")).toList(), true);
+        CircuitReport r = CircuitAnalysis.analyse(powered, options);
+        List<OpAmpRow> rows = r.opAmps().stream().map(CheckCommand::row).toList();
         List<String> notes = netlist.notes().stream().map(Netlist.Note::toString).toList();
-        // lowerCornerHz and settleSeconds stay null here: the AC and power-on transient analyses fill them.
-        return new FileReport(name, circuit.title(), outputNode, volts, opAmps, floating, null, null,
-                NetlistFindings.sorted(findings), notes);
+        return new FileReport(name, circuit.title(), outputNode, r.nodeVolts(), rows, r.floating(),
+                boxed(r.lowerCornerHz()), boxed(r.settleSeconds()), r.findings(), notes);
+    }
+
+    static OpAmpRow row(OpAmpState s) {
+        return new OpAmpRow(s.name(), s.outputVolts(), s.inPlusVolts(), s.inMinusVolts(), s.swingLowVolts(),
+                s.swingHighVolts(), s.commonModeLowVolts(), s.commonModeHighVolts(), s.saturated(), s.commonModeOk());
+    }
+
+    static Double boxed(OptionalDouble v) {
+        return v.isPresent() ? v.getAsDouble() : null;
+    }
+
+    private static String sourceName(Circuit c, String wanted) {
+        return c.elements(VoltageSource.class).stream().map(VoltageSource::name)
+                .filter(n -> n.equalsIgnoreCase(wanted)).findFirst().orElse(wanted);
     }
 
     private static String node(Circuit c, String wanted, String file, String option) {
@@ -242,23 +228,5 @@ public final class CheckCommand implements Callable<Integer> {
             out = out.replace(v.name(), e -> ((VoltageSource) e).withRamp(seconds));
         }
         return out;
-    }
-
-    /** A copy with each floating node tied to ground through {@link #FLOATING_TIE_OHMS}. */
-    static Circuit tied(Circuit c, List<String> floating) {
-        Set<String> names = new HashSet<>();
-        for (Element e : c.elements()) {
-            names.add(e.name().toLowerCase(Locale.ROOT));
-        }
-        Circuit.Builder b = c.toBuilder();
-        int i = 0;
-        for (String n : floating) {
-            String name;
-            do {
-                name = "Rtie" + (++i);
-            } while (names.contains(name.toLowerCase(Locale.ROOT)));
-            b.add(new Resistor(name, n, Circuit.GROUND, FLOATING_TIE_OHMS));
-        }
-        return b.build();
     }
 }

@@ -5,7 +5,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import halfrail.solve.OpAmpState;
+import halfrail.check.Finding;
+import halfrail.check.Severity;
 
 import java.util.List;
 import java.util.Locale;
@@ -40,17 +41,21 @@ final class Reports {
             }
             if (!r.opAmps().isEmpty()) {
                 b.append("  op-amps:\n");
-                for (OpAmpState s : r.opAmps()) {
+                for (OpAmpRow s : r.opAmps()) {
                     b.append(String.format(Locale.ROOT,
                             "    %s  out %s  in+ %s  in- %s  swing %.3f..%.3f V  common mode %.3f..%.3f V  %s, %s%n",
-                            s.name(), volts(s.outputVolts()), volts(s.inPlusVolts()), volts(s.inMinusVolts()),
-                            s.swingLowVolts(), s.swingHighVolts(), s.commonModeLowVolts(), s.commonModeHighVolts(),
+                            s.name(), volts(s.output()), volts(s.inPlus()), volts(s.inMinus()),
+                            s.swingLow(), s.swingHigh(), s.commonModeLow(), s.commonModeHigh(),
                             s.saturated() ? "SATURATED" : "linear",
                             s.commonModeOk() ? "inputs in range" : "INPUT OUT OF RANGE"));
                 }
             }
             b.append("  floating nodes: ").append(r.floating().isEmpty() ? "none" : String.join(", ", r.floating()))
                     .append('\n');
+            b.append("  lower corner: ").append(r.lowerCornerHz() == null ? "none found"
+                    : String.format(Locale.ROOT, "%.4g Hz", r.lowerCornerHz())).append('\n');
+            b.append("  settle-up: ").append(r.settleSeconds() == null ? "not settled or not run"
+                    : String.format(Locale.ROOT, "%.4g s", r.settleSeconds())).append('\n');
             if (r.findings().isEmpty()) {
                 b.append("  findings: none\n");
             } else {
@@ -61,6 +66,9 @@ final class Reports {
                         b.append(" [").append(String.join(", ", f.parts())).append(']');
                     }
                     b.append(": ").append(f.message()).append('\n');
+                    if (!f.suggestion().isEmpty()) {
+                        b.append("      suggestion: ").append(f.suggestion()).append('\n');
+                    }
                 }
             }
             for (String n : r.notes()) {
@@ -102,10 +110,10 @@ final class Reports {
             if (!r.opAmps().isEmpty()) {
                 b.append("| op-amp | out (V) | in+ (V) | in− (V) | swing low (V) | swing high (V) | saturated"
                         + " | common mode ok |\n|---|---:|---:|---:|---:|---:|---|---|\n");
-                for (OpAmpState s : r.opAmps()) {
+                for (OpAmpRow s : r.opAmps()) {
                     b.append(String.format(Locale.ROOT, "| %s | %s | %s | %s | %.3f | %.3f | %s | %s |%n",
-                            md(s.name()), number(s.outputVolts()), number(s.inPlusVolts()), number(s.inMinusVolts()),
-                            s.swingLowVolts(), s.swingHighVolts(), s.saturated() ? "yes" : "no",
+                            md(s.name()), number(s.output()), number(s.inPlus()), number(s.inMinus()),
+                            s.swingLow(), s.swingHigh(), s.saturated() ? "yes" : "no",
                             s.commonModeOk() ? "yes" : "no"));
                 }
                 b.append('\n');
@@ -120,7 +128,11 @@ final class Reports {
                     if (!f.parts().isEmpty()) {
                         b.append(" (").append(md(String.join(", ", f.parts()))).append(')');
                     }
-                    b.append(": ").append(md(f.message())).append('\n');
+                    b.append(": ").append(md(f.message()));
+                    if (!f.suggestion().isEmpty()) {
+                        b.append(" — ").append(md(f.suggestion()));
+                    }
+                    b.append('\n');
                 }
                 b.append('\n');
             }
@@ -131,7 +143,7 @@ final class Reports {
     static String json(List<CheckCommand.Outcome> outcomes, Severity failOn) {
         ObjectNode root = JSON.createObjectNode();
         root.put("version", HalfrailCommand.VERSION);
-        root.put("failOn", failOn.label());
+        root.put("failOn", FileReport.label(failOn));
         ArrayNode files = root.putArray("files");
         for (CheckCommand.Outcome o : outcomes) {
             ObjectNode f = files.addObject();
@@ -153,16 +165,16 @@ final class Reports {
                 }
             });
             ArrayNode opAmps = f.putArray("opamps");
-            for (OpAmpState s : r.opAmps()) {
+            for (OpAmpRow s : r.opAmps()) {
                 ObjectNode a = opAmps.addObject();
                 a.put("name", s.name());
-                a.put("output", s.outputVolts());
-                a.put("inPlus", s.inPlusVolts());
-                a.put("inMinus", s.inMinusVolts());
-                a.put("swingLow", s.swingLowVolts());
-                a.put("swingHigh", s.swingHighVolts());
-                a.put("commonModeLow", s.commonModeLowVolts());
-                a.put("commonModeHigh", s.commonModeHighVolts());
+                a.put("output", s.output());
+                a.put("inPlus", s.inPlus());
+                a.put("inMinus", s.inMinus());
+                a.put("swingLow", s.swingLow());
+                a.put("swingHigh", s.swingHigh());
+                a.put("commonModeLow", s.commonModeLow());
+                a.put("commonModeHigh", s.commonModeHigh());
                 a.put("saturated", s.saturated());
                 a.put("commonModeOk", s.commonModeOk());
             }
@@ -174,10 +186,11 @@ final class Reports {
             for (Finding x : r.findings()) {
                 ObjectNode n = findings.addObject();
                 n.put("code", x.code());
-                n.put("severity", x.severity().label());
+                n.put("severity", FileReport.label(x.severity()));
                 n.put("message", x.message());
                 ArrayNode parts = n.putArray("parts");
                 x.parts().forEach(parts::add);
+                n.put("suggestion", x.suggestion());
             }
             ArrayNode notes = f.putArray("notes");
             r.notes().forEach(notes::add);
