@@ -6,6 +6,7 @@ import halfrail.circuit.OpAmpParams;
 import halfrail.circuit.VoltageSource;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -19,6 +20,18 @@ import java.util.Map;
  * named limit and ends in {@link AnalysisException} of kind NO_CONVERGENCE or SINGULAR.
  * Nodes without a DC path are reported before any solve as FLOATING_NODE.
  *
+ * <p>Op-amp limiter handling. Beyond its knee the limiter is flat, so its Newton linearisation
+ * says the output does not depend on the inputs; a saturated output whose target has moved to
+ * the other side of the window would then jump from rail to rail on every iteration. So in each
+ * iteration, an op-amp whose open-loop target lies beyond one edge of its window while its state
+ * does not yet lie beyond that same edge has its state row replaced by the unlimited row
+ * {@code x = u} (the linearised circuit): the step then lands on the solution with that op-amp
+ * linear, and the next iteration clamps it if that solution lies outside the window. If such a
+ * step moves the state away from the side its target lies on (the signature of positive
+ * feedback, where the linear solution is the unstable middle point), the op-amp keeps its
+ * limited row for that iteration. At a solution no op-amp qualifies, so the converged iterate
+ * satisfies the true equations. Steps are not damped.
+ *
  * <p>An instance holds work arrays for one circuit size; it is not thread-safe.
  */
 public final class DcSolver {
@@ -30,12 +43,26 @@ public final class DcSolver {
     public static final double VOLTAGE_TOLERANCE = 1e-9;
     /** Absolute change in a current unknown below which Newton counts it converged, A. */
     public static final double CURRENT_TOLERANCE = 1e-13;
-    /** Largest change of any voltage unknown in one Newton iteration after the first, V. */
+    /**
+     * Formerly the largest voltage change per Newton iteration, V. No longer applied: uniform
+     * damping of the op-amp limiter's steps made saturated stages oscillate about their solution
+     * instead of re-entering the linear region (see the class comment). Kept for compatibility.
+     *
+     * @deprecated not used by the solver any more
+     */
+    @Deprecated
     public static final double MAX_VOLTAGE_STEP = 2.0;
-    /** Largest Kirchhoff current-law residual accepted at a node of a converged solution, A. */
+    /**
+     * Largest Kirchhoff current-law residual accepted at a node of a converged solution, A, on top
+     * of {@link #RESIDUAL_RELATIVE_TOLERANCE} times the magnitude of the currents meeting there.
+     */
     public static final double KCL_TOLERANCE_AMPS = 1e-9;
+    /** Relative part of the residual test: a fraction of the sum of |current| terms at the node. */
+    public static final double RESIDUAL_RELATIVE_TOLERANCE = 1e-6;
     /** Starting shunt conductance of gmin stepping, S. */
     public static final double GMIN_START = 1e-2;
+    /** Smallest shunt conductance of gmin stepping before the final solve without it, S. */
+    public static final double GMIN_END = 1e-13;
     /** Factor by which gmin falls per step. */
     public static final double GMIN_FACTOR = 10;
     /** Smallest source step of source stepping before giving up. */
@@ -45,18 +72,31 @@ public final class DcSolver {
 
     private final MnaSystem system;
     private final int n;
+    private final int nodeCount;
+    private final int branchCount;
+    private final int opAmpCount;
     private final double[] f;
     private final double[][] g;
     private final double[] dx;
+    private final double[] rowMagnitude;
+    private final boolean[] unlimited;
+    private final double[] limiter = new double[4];
     private final LinearSolver lu = new DenseLu();
     private int iterations;
+    private boolean linearStartSingular;
 
     public DcSolver(MnaSystem system) {
         this.system = system;
         this.n = system.size();
+        this.nodeCount = system.nodeCount();
+        this.opAmpCount = system.opAmpCount();
+        Circuit c = system.circuit();
+        this.branchCount = c.elements(VoltageSource.class).size() + opAmpCount;
         this.f = new double[n];
         this.g = new double[n][n];
         this.dx = new double[n];
+        this.rowMagnitude = new double[n];
+        this.unlimited = new boolean[opAmpCount];
     }
 
     /** Solve {@code circuit}'s operating point. */
@@ -72,39 +112,81 @@ public final class DcSolver {
     /**
      * Solve, starting Newton from {@code guess} when given (for example the previous point of a
      * sweep); a null guess starts from the linearised circuit.
+     *
+     * @throws AnalysisException FLOATING_NODE naming the nodes without a DC path; BAD_REQUEST for a
+     *                           guess of the wrong length; SINGULAR when the circuit's equations
+     *                           are singular (for example a loop of voltage sources); NO_CONVERGENCE
+     *                           when every strategy fails
      */
     public OperatingPoint solveFrom(double[] guess) {
-        List<String> floating = FloatingNodes.find(system.circuit());
-        if (!floating.isEmpty()) {
-            throw new AnalysisException(AnalysisException.Kind.FLOATING_NODE,
-                    "no DC path to a defined voltage at node" + (floating.size() > 1 ? "s " : " ")
-                            + String.join(", ", floating), floating);
+        checkFloating();
+        if (guess != null && guess.length != n) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
+                    "a starting guess needs " + n + " unknowns, got " + guess.length);
         }
         iterations = 0;
         double[] x = new double[n];
         if (guess != null) {
             System.arraycopy(guess, 0, x, 0, n);
         } else {
-            linearStart(x);
+            linearStartOr(x);
         }
-        OperatingPoint.Strategy strategy = OperatingPoint.Strategy.NEWTON;
-        if (!newton(x, 1, 0)) {
-            strategy = OperatingPoint.Strategy.GMIN_STEPPING;
-            if (!gminStepping(x)) {
-                strategy = OperatingPoint.Strategy.SOURCE_STEPPING;
-                if (!sourceStepping(x)) {
-                    throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
-                            "the operating point did not converge: Newton (" + MAX_NEWTON_ITERATIONS
-                                    + " iterations), gmin stepping from " + GMIN_START
-                                    + " S and source stepping down to steps of " + MIN_SOURCE_STEP + " all failed");
-                }
-            }
+        if (newton(x, 1, 0)) {
+            return result(x, OperatingPoint.Strategy.NEWTON);
+        }
+        if (gminStepping(x)) {
+            return result(x, OperatingPoint.Strategy.GMIN_STEPPING);
+        }
+        if (sourceStepping(x)) {
+            return result(x, OperatingPoint.Strategy.SOURCE_STEPPING);
+        }
+        throw failure();
+    }
+
+    /**
+     * Solve with one strategy only, from the linearised start (package-private: lets tests
+     * exercise each convergence aid on its own).
+     */
+    OperatingPoint solveUsing(OperatingPoint.Strategy strategy) {
+        checkFloating();
+        iterations = 0;
+        double[] x = new double[n];
+        linearStartOr(x);
+        boolean ok = switch (strategy) {
+            case NEWTON -> newton(x, 1, 0);
+            case GMIN_STEPPING -> gminStepping(x);
+            case SOURCE_STEPPING -> sourceStepping(x);
+        };
+        if (!ok) {
+            throw failure();
         }
         return result(x, strategy);
     }
 
+    private void checkFloating() {
+        List<String> floating = FloatingNodes.find(system.circuit());
+        if (!floating.isEmpty()) {
+            throw new AnalysisException(AnalysisException.Kind.FLOATING_NODE,
+                    "no DC path to a defined voltage at node" + (floating.size() > 1 ? "s " : " ")
+                            + String.join(", ", floating), floating);
+        }
+    }
+
+    private AnalysisException failure() {
+        if (linearStartSingular) {
+            return new AnalysisException(AnalysisException.Kind.SINGULAR,
+                    "the circuit equations are singular (for example a loop of voltage sources or two"
+                            + " driven outputs tied together), and no strategy found an operating point");
+        }
+        return new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
+                "the operating point did not converge: Newton (" + MAX_NEWTON_ITERATIONS
+                        + " iterations), gmin stepping from " + GMIN_START
+                        + " S and source stepping down to steps of " + MIN_SOURCE_STEP + " all failed");
+    }
+
+    /** The solution of the circuit with every limiter switched off, from x = 0. */
     private void linearStart(double[] x) {
-        java.util.Arrays.fill(x, 0);
+        Arrays.fill(x, 0);
         system.evaluate(x, 0, Mode.DC, 1, 0, false, f, g, null, null);
         lu.factor(g, n);
         for (int i = 0; i < n; i++) {
@@ -112,14 +194,25 @@ public final class DcSolver {
         }
         lu.solve(dx);
         for (int i = 0; i < n; i++) {
-            x[i] = dx[i];
+            x[i] = Double.isFinite(dx[i]) ? dx[i] : 0;
+        }
+    }
+
+    /** {@link #linearStart}, or all zeros when the linearised circuit is singular. */
+    private void linearStartOr(double[] x) {
+        try {
+            linearStart(x);
+            linearStartSingular = false;
+        } catch (AnalysisException e) {
+            linearStartSingular = true;
+            Arrays.fill(x, 0);
         }
     }
 
     private boolean gminStepping(double[] x) {
-        double[] trial = x.clone();
+        double[] trial = new double[n];
         linearStartOr(trial);
-        for (double gmin = GMIN_START; gmin > 1e-13; gmin /= GMIN_FACTOR) {
+        for (double gmin = GMIN_START; gmin >= GMIN_END; gmin /= GMIN_FACTOR) {
             if (!newton(trial, 1, gmin)) {
                 return false;
             }
@@ -129,14 +222,6 @@ public final class DcSolver {
         }
         System.arraycopy(trial, 0, x, 0, n);
         return true;
-    }
-
-    private void linearStartOr(double[] x) {
-        try {
-            linearStart(x);
-        } catch (AnalysisException e) {
-            java.util.Arrays.fill(x, 0);
-        }
     }
 
     private boolean sourceStepping(double[] x) {
@@ -171,36 +256,27 @@ public final class DcSolver {
 
     /** Newton at one source scale and gmin; updates x in place; true when converged. */
     private boolean newton(double[] x, double scale, double gmin) {
-        int nodes = system.nodeCount();
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             iterations++;
-            system.evaluate(x, 0, Mode.DC, scale, gmin, f, g, null, null);
-            try {
-                lu.factor(g, n);
-            } catch (AnalysisException e) {
+            boolean anyUnlimited = chooseRows(x, scale);
+            if (!step(x, scale, gmin)) {
                 return false;
             }
-            for (int i = 0; i < n; i++) {
-                dx[i] = -f[i];
+            boolean residualOk = residualAcceptable();
+            if (anyUnlimited && undoAgainstTarget(x, scale)) {
+                if (!step(x, scale, gmin)) {
+                    return false;
+                }
             }
-            lu.solve(dx);
-            double maxStep = 0;
+            boolean converged = residualOk;
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(dx[i])) {
                     return false;
                 }
-                if (isVoltage(i, nodes)) {
-                    maxStep = Math.max(maxStep, Math.abs(dx[i]));
-                }
-            }
-            double damp = it > 0 && maxStep > MAX_VOLTAGE_STEP ? MAX_VOLTAGE_STEP / maxStep : 1;
-            boolean converged = damp == 1;
-            for (int i = 0; i < n; i++) {
-                double step = damp * dx[i];
-                double next = x[i] + step;
+                double next = x[i] + dx[i];
                 double tol = RELATIVE_TOLERANCE * Math.max(Math.abs(x[i]), Math.abs(next))
-                        + (isVoltage(i, nodes) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
-                if (Math.abs(step) > tol) {
+                        + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
+                if (Math.abs(dx[i]) > tol) {
                     converged = false;
                 }
                 x[i] = next;
@@ -212,14 +288,93 @@ public final class DcSolver {
         return false;
     }
 
-    /** Node voltages and op-amp states are voltages; branch currents are not. */
-    private boolean isVoltage(int i, int nodes) {
-        return i < nodes || i >= nodes + branchCount();
+    /**
+     * Evaluate at x, apply the unlimited rows chosen in {@link #unlimited}, factor and solve for
+     * the Newton step into {@link #dx}; records the node rows' magnitudes for the residual test.
+     * False when the matrix is singular.
+     */
+    private boolean step(double[] x, double scale, double gmin) {
+        system.evaluate(x, 0, Mode.DC, scale, gmin, f, g, null, null);
+        for (int j = 0; j < opAmpCount; j++) {
+            if (unlimited[j]) {
+                system.unlimitedStateRow(j, x, scale, f, g);
+            }
+        }
+        for (int i = 0; i < nodeCount; i++) {
+            double m = 0;
+            double[] row = g[i];
+            for (int k = 0; k < n; k++) {
+                m += Math.abs(row[k] * x[k]);
+            }
+            rowMagnitude[i] = m;
+        }
+        try {
+            lu.factor(g, n);
+        } catch (AnalysisException e) {
+            return false;
+        }
+        for (int i = 0; i < n; i++) {
+            dx[i] = -f[i];
+        }
+        lu.solve(dx);
+        return true;
     }
 
-    private int branchCount() {
-        Circuit c = system.circuit();
-        return c.elements(VoltageSource.class).size() + c.elements(OpAmp.class).size();
+    /** Whether the KCL residual at x (held in f by the last {@link #step}) is within tolerance at every node. */
+    private boolean residualAcceptable() {
+        for (int i = 0; i < nodeCount; i++) {
+            if (!(Math.abs(f[i]) <= KCL_TOLERANCE_AMPS + RESIDUAL_RELATIVE_TOLERANCE * rowMagnitude[i])) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** Marks the op-amps whose target lies beyond an edge their state has not reached; true if any. */
+    private boolean chooseRows(double[] x, double scale) {
+        boolean any = false;
+        for (int j = 0; j < opAmpCount; j++) {
+            system.opAmpLimiter(j, x, scale, limiter);
+            double u = limiter[0];
+            double lo = limiter[1];
+            double hi = limiter[2];
+            double k = limiter[3];
+            double xs = x[system.opAmpStateUnknown(j)];
+            boolean release = k > 0
+                    && ((u > hi - k && xs <= hi - k) || (u < lo + k && xs >= lo + k));
+            unlimited[j] = release;
+            any |= release;
+        }
+        return any;
+    }
+
+    /**
+     * After a step with unlimited rows: an op-amp whose state the step moved away from the side
+     * its target lies on goes back to its limited row. True when any did (the step must be redone).
+     */
+    private boolean undoAgainstTarget(double[] x, double scale) {
+        boolean any = false;
+        for (int j = 0; j < opAmpCount; j++) {
+            if (!unlimited[j]) {
+                continue;
+            }
+            system.opAmpLimiter(j, x, scale, limiter);
+            double u = limiter[0];
+            double hi = limiter[2];
+            double k = limiter[3];
+            double move = dx[system.opAmpStateUnknown(j)];
+            boolean targetHigh = u > hi - k;
+            if (targetHigh ? move < 0 : move > 0) {
+                unlimited[j] = false;
+                any = true;
+            }
+        }
+        return any;
+    }
+
+    /** Node voltages and op-amp states are voltages; branch currents are not. */
+    private boolean isVoltage(int i) {
+        return i < nodeCount || i >= nodeCount + branchCount;
     }
 
     private OperatingPoint result(double[] x, OperatingPoint.Strategy strategy) {

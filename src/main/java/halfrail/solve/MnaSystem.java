@@ -55,6 +55,7 @@ public final class MnaSystem {
     private final int nodeCount;
     private final int size;
     private final Device[] devices;
+    private final OpAmpDevice[] opAmps;
 
     private MnaSystem(Circuit circuit) {
         this.circuit = circuit;
@@ -89,6 +90,13 @@ public final class MnaSystem {
             list.add(device(e));
         }
         this.devices = list.toArray(new Device[0]);
+        List<OpAmpDevice> amps = new ArrayList<>();
+        for (Device d : devices) {
+            if (d instanceof OpAmpDevice o) {
+                amps.add(o);
+            }
+        }
+        this.opAmps = amps.toArray(new OpAmpDevice[0]);
     }
 
     /** Assemble the equations of {@code circuit}. */
@@ -246,6 +254,55 @@ public final class MnaSystem {
             }
         }
         throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
+    }
+
+    /** Number of op-amps, in circuit order (for the DC solver's limiter handling). */
+    int opAmpCount() {
+        return opAmps.length;
+    }
+
+    /** Index of op-amp {@code j}'s internal state unknown. */
+    int opAmpStateUnknown(int j) {
+        return opAmps[j].st;
+    }
+
+    /**
+     * Op-amp {@code j}'s limiter at {@code x}: writes the open-loop target u, the window's low and
+     * high edges and the knee width actually used (all V) into {@code out[0..3]}; the knee is 0
+     * when the supplies leave no window.
+     */
+    void opAmpLimiter(int j, double[] x, double sourceScale, double[] out) {
+        OpAmpDevice o = opAmps[j];
+        OpAmpParams p = o.part.params();
+        double u = o.gain * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
+        double lo = OpAmpDevice.val(x, o.vn) + p.swingLowVolts();
+        double hi = OpAmpDevice.val(x, o.vp) - p.swingHighVolts();
+        double half = 0.5 * (hi - lo);
+        out[0] = u;
+        out[1] = lo;
+        out[2] = hi;
+        out[3] = half <= 0 ? 0 : Math.min(KNEE_VOLTS, 0.5 * half);
+    }
+
+    /**
+     * Replace op-amp {@code j}'s DC state row in {@code f} and {@code g} (as filled by
+     * {@link #evaluate} in {@link Mode#DC}) by its unlimited form {@code x − u = 0}: the row of the
+     * linearised circuit, which the DC solver uses to bring a limited output back into its window.
+     */
+    void unlimitedStateRow(int j, double[] x, double sourceScale, double[] f, double[][] g) {
+        OpAmpDevice o = opAmps[j];
+        OpAmpParams p = o.part.params();
+        int st = o.st;
+        double u = o.gain * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
+        f[st] = x[st] - u;
+        java.util.Arrays.fill(g[st], 0, size, 0);
+        g[st][st] = 1;
+        if (o.inP >= 0) {
+            g[st][o.inP] -= o.gain;
+        }
+        if (o.inM >= 0) {
+            g[st][o.inM] += o.gain;
+        }
     }
 
     private Device device(Element e) {
