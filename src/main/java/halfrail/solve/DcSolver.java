@@ -70,6 +70,18 @@ public final class DcSolver {
     /** Largest number of source-stepping solves. */
     public static final int MAX_SOURCE_STEPS = 400;
 
+    /** Largest total violation, V, at which the limiter active-set search accepts a set of modes. */
+    public static final double ACTIVE_SET_TOLERANCE = 1e-9;
+    /** Mode changes allowed per op-amp in the limiter active-set search (plus {@link #ACTIVE_SET_EXTRA_PASSES}). */
+    public static final int ACTIVE_SET_PASSES_PER_OP_AMP = 4;
+    /** Mode changes allowed in the limiter active-set search on top of the per-op-amp allowance. */
+    public static final int ACTIVE_SET_EXTRA_PASSES = 8;
+
+    private static final int ROW_LIMITED = 0;
+    private static final int ROW_UNLIMITED = 1;
+    private static final int ROW_CLAMP_HIGH = 2;
+    private static final int ROW_CLAMP_LOW = 3;
+
     private final MnaSystem system;
     private final int n;
     private final int nodeCount;
@@ -79,7 +91,8 @@ public final class DcSolver {
     private final double[][] g;
     private final double[] dx;
     private final double[] rowMagnitude;
-    private final boolean[] unlimited;
+    /** Row used for each op-amp's state in the current iteration: one of the ROW_ constants. */
+    private final int[] rowKind;
     private final double[] limiter = new double[4];
     private final LinearSolver lu = new DenseLu();
     private int iterations;
@@ -96,7 +109,7 @@ public final class DcSolver {
         this.g = new double[n][n];
         this.dx = new double[n];
         this.rowMagnitude = new double[n];
-        this.unlimited = new boolean[opAmpCount];
+        this.rowKind = new int[opAmpCount];
     }
 
     /** Solve {@code circuit}'s operating point. */
@@ -134,6 +147,9 @@ public final class DcSolver {
         if (newton(x, 1, 0)) {
             return result(x, OperatingPoint.Strategy.NEWTON);
         }
+        if (limiterActiveSet(x)) {
+            return result(x, OperatingPoint.Strategy.LIMITER_ACTIVE_SET);
+        }
         if (gminStepping(x)) {
             return result(x, OperatingPoint.Strategy.GMIN_STEPPING);
         }
@@ -154,6 +170,7 @@ public final class DcSolver {
         linearStartOr(x);
         boolean ok = switch (strategy) {
             case NEWTON -> newton(x, 1, 0);
+            case LIMITER_ACTIVE_SET -> limiterActiveSet(x);
             case GMIN_STEPPING -> gminStepping(x);
             case SOURCE_STEPPING -> sourceStepping(x);
         };
@@ -207,6 +224,133 @@ public final class DcSolver {
             linearStartSingular = true;
             Arrays.fill(x, 0);
         }
+    }
+
+    /**
+     * Limiter active-set search, for circuits where op-amps in a loop keep changing region together
+     * (Newton with one region change per op-amp and iteration can then cycle). Each op-amp is given
+     * an explicit mode: linear (x = u), clamped at its high edge or clamped at its low edge. From
+     * all-linear, the circuit is solved with the modes held; then the one op-amp whose mode is most
+     * inconsistent (a linear output beyond an edge, or a clamped output whose target has come back
+     * inside) changes mode, and the circuit is solved again; a clamped op-amp made linear whose
+     * linear solution lies beyond the edge it was clamped at is in positive feedback and takes the
+     * other clamp instead. One change per pass avoids the cycles
+     * of changing all at once. A consistent set of modes is then the start for a final Newton solve
+     * on the true, smooth equations. Bounded by {@link #ACTIVE_SET_PASSES_PER_OP_AMP} per op-amp
+     * plus {@link #ACTIVE_SET_EXTRA_PASSES}; updates x only on success.
+     */
+    private boolean limiterActiveSet(double[] x) {
+        if (opAmpCount == 0) {
+            return false;
+        }
+        double[] trial = new double[n];
+        linearStartOr(trial);
+        int[] mode = new int[opAmpCount];
+        Arrays.fill(mode, ROW_UNLIMITED);
+        int passes = ACTIVE_SET_PASSES_PER_OP_AMP * opAmpCount + ACTIVE_SET_EXTRA_PASSES;
+        boolean consistent = false;
+        int released = -1;
+        int releasedFrom = ROW_UNLIMITED;
+        for (int pass = 0; pass < passes && !consistent; pass++) {
+            if (!heldModeNewton(trial, mode)) {
+                return false;
+            }
+            if (released >= 0) {
+                // A clamped op-amp just made linear whose linear solution lies beyond the edge it
+                // was clamped at is in positive feedback: its consistent mode is the other clamp.
+                system.opAmpLimiter(released, trial, 1, limiter);
+                double xs = trial[system.opAmpStateUnknown(released)];
+                boolean back = releasedFrom == ROW_CLAMP_LOW ? xs < limiter[1] : xs > limiter[2];
+                int op = released;
+                released = -1;
+                if (back) {
+                    mode[op] = releasedFrom == ROW_CLAMP_LOW ? ROW_CLAMP_HIGH : ROW_CLAMP_LOW;
+                    continue;
+                }
+            }
+            int worst = -1;
+            int worstMode = ROW_UNLIMITED;
+            double worstAmount = ACTIVE_SET_TOLERANCE;
+            for (int j = 0; j < opAmpCount; j++) {
+                system.opAmpLimiter(j, trial, 1, limiter);
+                double u = limiter[0];
+                double lo = limiter[1];
+                double hi = limiter[2];
+                if (limiter[3] <= 0) {
+                    continue; // no window: the limited row is already linear in the supplies
+                }
+                double xs = trial[system.opAmpStateUnknown(j)];
+                double amount = 0;
+                int next = mode[j];
+                switch (mode[j]) {
+                    case ROW_UNLIMITED -> {
+                        if (xs > hi) {
+                            amount = xs - hi;
+                            next = ROW_CLAMP_HIGH;
+                        } else if (xs < lo) {
+                            amount = lo - xs;
+                            next = ROW_CLAMP_LOW;
+                        }
+                    }
+                    case ROW_CLAMP_HIGH -> {
+                        amount = hi - u;
+                        next = ROW_UNLIMITED;
+                    }
+                    case ROW_CLAMP_LOW -> {
+                        amount = u - lo;
+                        next = ROW_UNLIMITED;
+                    }
+                    default -> { }
+                }
+                if (amount > worstAmount) {
+                    worstAmount = amount;
+                    worst = j;
+                    worstMode = next;
+                }
+            }
+            if (worst < 0) {
+                consistent = true;
+            } else {
+                if (worstMode == ROW_UNLIMITED) {
+                    released = worst;
+                    releasedFrom = mode[worst];
+                }
+                mode[worst] = worstMode;
+            }
+        }
+        if (!consistent || !newton(trial, 1, 0)) {
+            return false;
+        }
+        System.arraycopy(trial, 0, x, 0, n);
+        return true;
+    }
+
+    /** Newton with every op-amp's state row held in {@code mode}; true when converged. */
+    private boolean heldModeNewton(double[] x, int[] mode) {
+        for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
+            iterations++;
+            System.arraycopy(mode, 0, rowKind, 0, opAmpCount);
+            if (!step(x, 1, 0)) {
+                return false;
+            }
+            boolean converged = true;
+            for (int i = 0; i < n; i++) {
+                if (!Double.isFinite(dx[i])) {
+                    return false;
+                }
+                double next = x[i] + dx[i];
+                double tol = RELATIVE_TOLERANCE * Math.max(Math.abs(x[i]), Math.abs(next))
+                        + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
+                if (Math.abs(dx[i]) > tol) {
+                    converged = false;
+                }
+                x[i] = next;
+            }
+            if (converged) {
+                return true;
+            }
+        }
+        return false;
     }
 
     private boolean gminStepping(double[] x) {
@@ -289,15 +433,18 @@ public final class DcSolver {
     }
 
     /**
-     * Evaluate at x, apply the unlimited rows chosen in {@link #unlimited}, factor and solve for
+     * Evaluate at x, apply the state rows chosen in {@link #rowKind}, factor and solve for
      * the Newton step into {@link #dx}; records the node rows' magnitudes for the residual test.
      * False when the matrix is singular.
      */
     private boolean step(double[] x, double scale, double gmin) {
         system.evaluate(x, 0, Mode.DC, scale, gmin, f, g, null, null);
         for (int j = 0; j < opAmpCount; j++) {
-            if (unlimited[j]) {
-                system.unlimitedStateRow(j, x, scale, f, g);
+            switch (rowKind[j]) {
+                case ROW_UNLIMITED -> system.unlimitedStateRow(j, x, scale, f, g);
+                case ROW_CLAMP_HIGH -> system.clampedStateRow(j, x, true, f, g);
+                case ROW_CLAMP_LOW -> system.clampedStateRow(j, x, false, f, g);
+                default -> { }
             }
         }
         for (int i = 0; i < nodeCount; i++) {
@@ -342,7 +489,7 @@ public final class DcSolver {
             double xs = x[system.opAmpStateUnknown(j)];
             boolean release = k > 0
                     && ((u > hi - k && xs <= hi - k) || (u < lo + k && xs >= lo + k));
-            unlimited[j] = release;
+            rowKind[j] = release ? ROW_UNLIMITED : ROW_LIMITED;
             any |= release;
         }
         return any;
@@ -355,7 +502,7 @@ public final class DcSolver {
     private boolean undoAgainstTarget(double[] x, double scale) {
         boolean any = false;
         for (int j = 0; j < opAmpCount; j++) {
-            if (!unlimited[j]) {
+            if (rowKind[j] != ROW_UNLIMITED) {
                 continue;
             }
             system.opAmpLimiter(j, x, scale, limiter);
@@ -365,7 +512,7 @@ public final class DcSolver {
             double move = dx[system.opAmpStateUnknown(j)];
             boolean targetHigh = u > hi - k;
             if (targetHigh ? move < 0 : move > 0) {
-                unlimited[j] = false;
+                rowKind[j] = ROW_LIMITED;
                 any = true;
             }
         }

@@ -305,6 +305,25 @@ public final class MnaSystem {
         }
     }
 
+    /**
+     * Replace op-amp {@code j}'s DC state row by a clamp at one edge of its window:
+     * {@code x − (V(vPos) − swingHigh) = 0} when {@code high}, else {@code x − (V(vNeg) + swingLow) = 0}.
+     * Used by the DC solver's limiter active-set search.
+     */
+    void clampedStateRow(int j, double[] x, boolean high, double[] f, double[][] g) {
+        OpAmpDevice o = opAmps[j];
+        OpAmpParams p = o.part.params();
+        int st = o.st;
+        double edge = high ? OpAmpDevice.val(x, o.vp) - p.swingHighVolts() : OpAmpDevice.val(x, o.vn) + p.swingLowVolts();
+        f[st] = x[st] - edge;
+        java.util.Arrays.fill(g[st], 0, size, 0);
+        g[st][st] = 1;
+        int rail = high ? o.vp : o.vn;
+        if (rail >= 0) {
+            g[st][rail] -= 1;
+        }
+    }
+
     private Device device(Element e) {
         if (e instanceof Resistor r) {
             return new ResistorDevice(idx(r.a()), idx(r.b()), 1.0 / r.ohms());
