@@ -77,6 +77,15 @@ public final class DcSolver {
     /** Mode changes allowed in the limiter active-set search on top of the per-op-amp allowance. */
     public static final int ACTIVE_SET_EXTRA_PASSES = 8;
 
+    /** Largest effective open-loop gain at the start of gain stepping, V/V. */
+    public static final double GAIN_STEPPING_START = 1;
+    /** Largest factor by which gain stepping raises every op-amp's gain in one step. */
+    public static final double GAIN_STEP_FACTOR = 10;
+    /** Smallest gain-stepping factor before giving up (steps are refined by square roots). */
+    public static final double MIN_GAIN_STEP_FACTOR = 1.001;
+    /** Largest number of gain-stepping solves. */
+    public static final int MAX_GAIN_STEPS = 200;
+
     private static final int ROW_LIMITED = 0;
     private static final int ROW_UNLIMITED = 1;
     private static final int ROW_CLAMP_HIGH = 2;
@@ -96,6 +105,8 @@ public final class DcSolver {
     private final double[] limiter = new double[4];
     private final LinearSolver lu = new DenseLu();
     private int iterations;
+    /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
+    private double gainScale = 1;
     private boolean linearStartSingular;
 
     public DcSolver(MnaSystem system) {
@@ -150,6 +161,9 @@ public final class DcSolver {
         if (limiterActiveSet(x)) {
             return result(x, OperatingPoint.Strategy.LIMITER_ACTIVE_SET);
         }
+        if (gainStepping(x)) {
+            return result(x, OperatingPoint.Strategy.GAIN_STEPPING);
+        }
         if (gminStepping(x)) {
             return result(x, OperatingPoint.Strategy.GMIN_STEPPING);
         }
@@ -171,6 +185,7 @@ public final class DcSolver {
         boolean ok = switch (strategy) {
             case NEWTON -> newton(x, 1, 0);
             case LIMITER_ACTIVE_SET -> limiterActiveSet(x);
+            case GAIN_STEPPING -> gainStepping(x);
             case GMIN_STEPPING -> gminStepping(x);
             case SOURCE_STEPPING -> sourceStepping(x);
         };
@@ -197,7 +212,7 @@ public final class DcSolver {
         }
         return new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
                 "the operating point did not converge: Newton (" + MAX_NEWTON_ITERATIONS
-                        + " iterations), gmin stepping from " + GMIN_START
+                        + " iterations), the limiter active-set search, gain stepping, gmin stepping from " + GMIN_START
                         + " S and source stepping down to steps of " + MIN_SOURCE_STEP + " all failed");
     }
 
@@ -258,7 +273,7 @@ public final class DcSolver {
             if (released >= 0) {
                 // A clamped op-amp just made linear whose linear solution lies beyond the edge it
                 // was clamped at is in positive feedback: its consistent mode is the other clamp.
-                system.opAmpLimiter(released, trial, 1, limiter);
+                system.opAmpLimiter(released, trial, 1, 1, limiter);
                 double xs = trial[system.opAmpStateUnknown(released)];
                 boolean back = releasedFrom == ROW_CLAMP_LOW ? xs < limiter[1] : xs > limiter[2];
                 int op = released;
@@ -272,7 +287,7 @@ public final class DcSolver {
             int worstMode = ROW_UNLIMITED;
             double worstAmount = ACTIVE_SET_TOLERANCE;
             for (int j = 0; j < opAmpCount; j++) {
-                system.opAmpLimiter(j, trial, 1, limiter);
+                system.opAmpLimiter(j, trial, 1, 1, limiter);
                 double u = limiter[0];
                 double lo = limiter[1];
                 double hi = limiter[2];
@@ -351,6 +366,59 @@ public final class DcSolver {
             }
         }
         return false;
+    }
+
+    /**
+     * Gain stepping: a homotopy in the op-amps' open-loop gains. Every gain is scaled so that the
+     * largest is {@link #GAIN_STEPPING_START}, where each op-amp barely amplifies and Newton
+     * converges from zero; the scale then rises by up to {@link #GAIN_STEP_FACTOR} per step, each
+     * solve starting from the last, with the factor refined by square roots after a failure, until
+     * the real gains are reached. The solution follows a continuous path, which finds operating
+     * points where an op-amp in a loop rests in its limiter's knee (no set of linear/clamped modes
+     * is consistent there). Bounded by {@link #MAX_GAIN_STEPS} and {@link #MIN_GAIN_STEP_FACTOR};
+     * updates x only on success.
+     */
+    private boolean gainStepping(double[] x) {
+        if (opAmpCount == 0) {
+            return false;
+        }
+        double maxGain = 0;
+        for (OpAmp o : system.circuit().elements(OpAmp.class)) {
+            maxGain = Math.max(maxGain, o.params().openLoopGain());
+        }
+        double level = Math.min(1, GAIN_STEPPING_START / maxGain);
+        double[] trial = new double[n];
+        double[] last = new double[n];
+        try {
+            gainScale = level;
+            if (!newton(trial, 1, 0)) {
+                return false;
+            }
+            double factor = GAIN_STEP_FACTOR;
+            int solves = 0;
+            while (level < 1) {
+                if (++solves > MAX_GAIN_STEPS) {
+                    return false;
+                }
+                double next = Math.min(1, level * factor);
+                System.arraycopy(trial, 0, last, 0, n);
+                gainScale = next;
+                if (newton(trial, 1, 0)) {
+                    level = next;
+                    factor = Math.min(factor * factor, GAIN_STEP_FACTOR);
+                } else {
+                    System.arraycopy(last, 0, trial, 0, n);
+                    factor = Math.sqrt(factor);
+                    if (factor < MIN_GAIN_STEP_FACTOR) {
+                        return false;
+                    }
+                }
+            }
+        } finally {
+            gainScale = 1;
+        }
+        System.arraycopy(trial, 0, x, 0, n);
+        return true;
     }
 
     private boolean gminStepping(double[] x) {
@@ -438,10 +506,10 @@ public final class DcSolver {
      * False when the matrix is singular.
      */
     private boolean step(double[] x, double scale, double gmin) {
-        system.evaluate(x, 0, Mode.DC, scale, gmin, f, g, null, null);
+        system.evaluate(x, 0, Mode.DC, scale, gmin, true, gainScale, f, g, null, null);
         for (int j = 0; j < opAmpCount; j++) {
             switch (rowKind[j]) {
-                case ROW_UNLIMITED -> system.unlimitedStateRow(j, x, scale, f, g);
+                case ROW_UNLIMITED -> system.unlimitedStateRow(j, x, scale, gainScale, f, g);
                 case ROW_CLAMP_HIGH -> system.clampedStateRow(j, x, true, f, g);
                 case ROW_CLAMP_LOW -> system.clampedStateRow(j, x, false, f, g);
                 default -> { }
@@ -481,7 +549,7 @@ public final class DcSolver {
     private boolean chooseRows(double[] x, double scale) {
         boolean any = false;
         for (int j = 0; j < opAmpCount; j++) {
-            system.opAmpLimiter(j, x, scale, limiter);
+            system.opAmpLimiter(j, x, scale, gainScale, limiter);
             double u = limiter[0];
             double lo = limiter[1];
             double hi = limiter[2];
@@ -505,7 +573,7 @@ public final class DcSolver {
             if (rowKind[j] != ROW_UNLIMITED) {
                 continue;
             }
-            system.opAmpLimiter(j, x, scale, limiter);
+            system.opAmpLimiter(j, x, scale, gainScale, limiter);
             double u = limiter[0];
             double hi = limiter[2];
             double k = limiter[3];

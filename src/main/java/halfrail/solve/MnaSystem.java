@@ -192,6 +192,15 @@ public final class MnaSystem {
      */
     void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit,
                   double[] f, double[][] g, double[] q, double[][] c) {
+        evaluate(x, t, mode, sourceScale, gmin, limit, 1, f, g, q, c);
+    }
+
+    /**
+     * As above, with every op-amp's open-loop gain multiplied by {@code gainScale} (1 for the real
+     * circuit; smaller values serve the DC solver's gain stepping).
+     */
+    void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit, double gainScale,
+                  double[] f, double[][] g, double[] q, double[][] c) {
         java.util.Arrays.fill(f, 0, size, 0);
         if (g != null) {
             for (int i = 0; i < size; i++) {
@@ -206,7 +215,7 @@ public final class MnaSystem {
                 java.util.Arrays.fill(c[i], 0, size, 0);
             }
         }
-        Stamp s = new Stamp(x, f, g, q, c, limit);
+        Stamp s = new Stamp(x, f, g, q, c, limit, gainScale);
         for (Device d : devices) {
             d.load(s, t, mode, sourceScale);
         }
@@ -267,14 +276,14 @@ public final class MnaSystem {
     }
 
     /**
-     * Op-amp {@code j}'s limiter at {@code x}: writes the open-loop target u, the window's low and
+     * Op-amp {@code j}'s limiter at {@code x}, with its gain times {@code gainScale}: writes the open-loop target u, the window's low and
      * high edges and the knee width actually used (all V) into {@code out[0..3]}; the knee is 0
      * when the supplies leave no window.
      */
-    void opAmpLimiter(int j, double[] x, double sourceScale, double[] out) {
+    void opAmpLimiter(int j, double[] x, double sourceScale, double gainScale, double[] out) {
         OpAmpDevice o = opAmps[j];
         OpAmpParams p = o.part.params();
-        double u = o.gain * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
+        double u = o.gain * gainScale * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
         double lo = OpAmpDevice.val(x, o.vn) + p.swingLowVolts();
         double hi = OpAmpDevice.val(x, o.vp) - p.swingHighVolts();
         double half = 0.5 * (hi - lo);
@@ -289,19 +298,20 @@ public final class MnaSystem {
      * {@link #evaluate} in {@link Mode#DC}) by its unlimited form {@code x − u = 0}: the row of the
      * linearised circuit, which the DC solver uses to bring a limited output back into its window.
      */
-    void unlimitedStateRow(int j, double[] x, double sourceScale, double[] f, double[][] g) {
+    void unlimitedStateRow(int j, double[] x, double sourceScale, double gainScale, double[] f, double[][] g) {
         OpAmpDevice o = opAmps[j];
         OpAmpParams p = o.part.params();
         int st = o.st;
-        double u = o.gain * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
+        double gain = o.gain * gainScale;
+        double u = gain * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
         f[st] = x[st] - u;
         java.util.Arrays.fill(g[st], 0, size, 0);
         g[st][st] = 1;
         if (o.inP >= 0) {
-            g[st][o.inP] -= o.gain;
+            g[st][o.inP] -= gain;
         }
         if (o.inM >= 0) {
-            g[st][o.inM] += o.gain;
+            g[st][o.inM] += gain;
         }
     }
 
@@ -352,9 +362,11 @@ public final class MnaSystem {
         final double[] q;
         final double[][] c;
         final boolean limit;
+        final double gainScale;
 
-        Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit) {
+        Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale) {
             this.limit = limit;
+            this.gainScale = gainScale;
             this.x = x;
             this.f = f;
             this.g = g;
@@ -536,7 +548,7 @@ public final class MnaSystem {
             s.g(br, br, p.outputOhms());
 
             // Limited open-loop target L(u) and its partial derivatives.
-            double u = gain * (s.v(inP) - s.v(inM) + scale * p.offsetVolts());
+            double u = gain * s.gainScale * (s.v(inP) - s.v(inM) + scale * p.offsetVolts());
             double lo = s.v(vn) + p.swingLowVolts();
             double hi = s.v(vp) - p.swingHighVolts();
             double limited;
@@ -601,7 +613,7 @@ public final class MnaSystem {
 
         /** Adds factor * dL/dx to row st. */
         private void addTargetJacobian(Stamp s, double factor, double dU, double dLo, double dHi) {
-            double du = factor * dU * gain;
+            double du = factor * dU * gain * s.gainScale;
             s.g(st, inP, du);
             s.g(st, inM, -du);
             s.g(st, vn, factor * dLo);

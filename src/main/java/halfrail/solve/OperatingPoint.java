@@ -26,6 +26,8 @@ public record OperatingPoint(MnaSystem system, double[] solution, Map<String, Do
          * linear or clamped, one mode change at a time, until the modes are consistent.
          */
         LIMITER_ACTIVE_SET,
+        /** Newton along a path of op-amp open-loop gains raised from about 1 to their real values. */
+        GAIN_STEPPING,
         /** Newton with a shunt conductance on every node, stepped down to zero. */
         GMIN_STEPPING,
         /** Newton with all independent sources ramped up from zero. */
