@@ -568,19 +568,27 @@ public final class MnaSystem {
                 dLo = 0.5;
                 dHi = 0.5;
             } else {
-                double k = Math.min(KNEE_VOLTS, 0.5 * half);
+                // In a narrow window the knee is a quarter of the window, k = (hi − lo)/4, and so
+                // depends on both edges: ∂k/∂hi = 1/4, ∂k/∂lo = −1/4.
+                boolean narrow = 0.5 * half < KNEE_VOLTS;
+                double k = narrow ? 0.5 * half : KNEE_VOLTS;
+                double dkHi = narrow ? 0.25 : 0;
                 if (u > hi - k) {
-                    double e = Math.exp(-(u - (hi - k)) / k);
+                    double z = (u - (hi - k)) / k;
+                    double e = Math.exp(-z);
                     limited = hi - k * e;
                     dU = e;
-                    dHi = 1 - e;
-                    dLo = 0;
+                    double dk = -e * z; // ∂L/∂k
+                    dHi = 1 - e + dk * dkHi;
+                    dLo = -dk * dkHi;
                 } else if (u < lo + k) {
-                    double e = Math.exp((u - (lo + k)) / k);
+                    double z = ((lo + k) - u) / k;
+                    double e = Math.exp(-z);
                     limited = lo + k * e;
                     dU = e;
-                    dLo = 1 - e;
-                    dHi = 0;
+                    double dk = e * z; // ∂L/∂k
+                    dLo = 1 - e - dk * dkHi;
+                    dHi = dk * dkHi;
                 } else {
                     limited = u;
                     dU = 1;
