@@ -16,9 +16,13 @@ import java.util.Map;
  *
  * <p>The start is the solution of the circuit with every op-amp limiter switched off (a linear
  * solve); circuits whose op-amps stay linear then converge in one or two iterations. When
- * Newton fails, gmin stepping and then source stepping are tried. Each loop is bounded by a
- * named limit and ends in {@link AnalysisException} of kind NO_CONVERGENCE or SINGULAR.
- * Nodes without a DC path are reported before any solve as FLOATING_NODE.
+ * Newton fails, these are tried in turn, each from the linearised start: the limiter active-set
+ * search ({@link OperatingPoint.Strategy#LIMITER_ACTIVE_SET}), gain stepping
+ * ({@link OperatingPoint.Strategy#GAIN_STEPPING}), gmin stepping and source stepping. The
+ * strategy that succeeded is reported. Each loop is bounded by a named limit and ends in
+ * {@link AnalysisException} of kind NO_CONVERGENCE, or SINGULAR when the linearised circuit is
+ * singular and no strategy succeeds (a loop of voltage sources, for example). Nodes without a DC
+ * path are reported before any solve as FLOATING_NODE.
  *
  * <p>Op-amp limiter handling. Beyond its knee the limiter is flat, so its Newton linearisation
  * says the output does not depend on the inputs; a saturated output whose target has moved to

@@ -271,6 +271,32 @@ class DcConvergenceTest {
     }
 
     @Test
+    @DisplayName("a two-op-amp loop resting in a limiter knee defeats Newton and the active-set search; gain stepping solves it and says so")
+    void loopRestingInTheKneeIsSolvedByGainSteppingAndReportsIt() {
+        // seed 49 of the random-network regression set: U1 and U2 close a negative loop through
+        // each other's inputs, and the only operating point has U1 inside its knee
+        Circuit c = RandomOpAmpNetworkTest.randomNetwork(new java.util.Random(49));
+        OperatingPoint op = DcSolver.operatingPoint(c);
+        assertEquals(OperatingPoint.Strategy.GAIN_STEPPING, op.strategy());
+        KclCheck.assertHolds(c, op);
+        assertThrows(AnalysisException.class,
+                () -> new DcSolver(MnaSystem.of(c)).solveUsing(OperatingPoint.Strategy.NEWTON));
+    }
+
+    @Test
+    void operatingPointCopiesItsArraysInAndOut() {
+        Circuit c = StageCircuits.invertingCascade(1, new double[] {2}, 0.1, TestAmps.bipolarSwing());
+        OperatingPoint op = DcSolver.operatingPoint(c);
+        double[] x = op.solution();
+        double before = op.voltage("o1");
+        x[op.system().nodeIndex("o1")] = 99;
+        assertEquals(before, op.voltage("o1"));
+        assertThrows(UnsupportedOperationException.class, () -> op.nodeVolts().put("o1", 1.0));
+        assertEquals(op.voltage("o1"), op.nodeVolts().get("o1"));
+        assertEquals(op.current("U1"), op.branchAmps().get("U1"));
+    }
+
+    @Test
     void plainCircuitsReportPlainNewton() {
         Circuit c = StageCircuits.invertingCascade(3, new double[] {2}, 0.1, TestAmps.bipolarSwing());
         OperatingPoint op = DcSolver.operatingPoint(c);
