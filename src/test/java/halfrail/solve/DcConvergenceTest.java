@@ -302,6 +302,7 @@ class DcConvergenceTest {
         OperatingPoint op = DcSolver.operatingPoint(c);
         assertEquals(OperatingPoint.Strategy.NEWTON, op.strategy());
         assertTrue(op.iterations() <= 3, "a linear circuit converges at once; took " + op.iterations());
+        KclCheck.assertHolds(c, op);
     }
 
     @Test
@@ -312,6 +313,7 @@ class DcConvergenceTest {
         OperatingPoint again = solver.solveFrom(first.solution());
         assertTrue(again.iterations() <= 2, "took " + again.iterations());
         assertArrayEquals(first.solution(), again.solution(), 1e-9);
+        KclCheck.assertHolds(c, again);
     }
 
     @Test
