@@ -90,6 +90,13 @@ public final class DcSolver {
     /** Largest number of gain-stepping solves. */
     public static final int MAX_GAIN_STEPS = 200;
 
+    /**
+     * Loop gain (dimensionless) above which an op-amp resting in its linear region marks the
+     * operating point as unstable: its target moves by more than its output does, so with the
+     * dominant-pole dynamics dx/dt = ωp·(u − x) any disturbance grows.
+     */
+    public static final double UNSTABLE_LOOP_GAIN = 1;
+
     private static final int ROW_LIMITED = 0;
     private static final int ROW_UNLIMITED = 1;
     private static final int ROW_CLAMP_HIGH = 2;
@@ -591,12 +598,73 @@ public final class DcSolver {
         return any;
     }
 
+    /**
+     * Moves a converged point off an unstable equilibrium. An op-amp in its linear region whose
+     * loop gain exceeds {@link #UNSTABLE_LOOP_GAIN} (positive feedback, as in a Schmitt trigger
+     * whose input lies inside its hysteresis band) sits on the unstable middle solution, which a
+     * real circuit never rests on. The op-amp is then held at the nearer edge of its window (then
+     * the other) and the circuit solved again; a converged result with that op-amp on its edge
+     * replaces x. Which of two stable states a real circuit takes depends on its history, which a
+     * DC analysis does not know. At most two extra solves per op-amp; x is kept when both fail.
+     */
+    private void preferStable(double[] x) {
+        int[] mode = new int[opAmpCount];
+        for (int j = 0; j < opAmpCount; j++) {
+            system.opAmpLimiter(j, x, 1, 1, limiter);
+            double u = limiter[0];
+            double lo = limiter[1];
+            double hi = limiter[2];
+            double k = limiter[3];
+            if (k <= 0 || u <= lo + k || u >= hi - k || !(loopGain(j, x) > UNSTABLE_LOOP_GAIN)) {
+                continue;
+            }
+            int st = system.opAmpStateUnknown(j);
+            boolean upperFirst = x[st] >= 0.5 * (lo + hi);
+            for (int attempt = 0; attempt < 2; attempt++) {
+                boolean high = upperFirst == (attempt == 0);
+                double[] trial = x.clone();
+                Arrays.fill(mode, ROW_LIMITED);
+                mode[j] = high ? ROW_CLAMP_HIGH : ROW_CLAMP_LOW;
+                if (heldModeNewton(trial, mode) && newton(trial, 1, 0)) {
+                    system.opAmpLimiter(j, trial, 1, 1, limiter);
+                    boolean onEdge = high ? limiter[0] >= limiter[2] - limiter[3] : limiter[0] <= limiter[1] + limiter[3];
+                    if (onEdge) {
+                        System.arraycopy(trial, 0, x, 0, n);
+                        break;
+                    }
+                }
+            }
+        }
+    }
+
+    /**
+     * Loop gain of op-amp {@code j} at x: the change of its target u per volt of change of its
+     * state, with the rest of the circuit linearised at x and the op-amp's own state row opened.
+     * NaN when the opened circuit is singular.
+     */
+    private double loopGain(int j, double[] x) {
+        system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
+        int st = system.opAmpStateUnknown(j);
+        Arrays.fill(g[st], 0, n, 0);
+        g[st][st] = 1;
+        try {
+            lu.factor(g, n);
+        } catch (AnalysisException e) {
+            return Double.NaN;
+        }
+        Arrays.fill(dx, 0);
+        dx[st] = 1;
+        lu.solve(dx);
+        return system.opAmpTargetChange(j, dx);
+    }
+
     /** Node voltages and op-amp states are voltages; branch currents are not. */
     private boolean isVoltage(int i) {
         return i < nodeCount || i >= nodeCount + branchCount;
     }
 
     private OperatingPoint result(double[] x, OperatingPoint.Strategy strategy) {
+        preferStable(x);
         Circuit c = system.circuit();
         system.evaluate(x, 0, Mode.DC, 1, 0, f, null, null, null);
         double residual = 0;

@@ -316,6 +316,15 @@ public final class MnaSystem {
     }
 
     /**
+     * The change of op-amp {@code j}'s open-loop target u, V, for a change {@code dx} of the
+     * unknowns: A·(dV(in+) − dV(in−)).
+     */
+    double opAmpTargetChange(int j, double[] dx) {
+        OpAmpDevice o = opAmps[j];
+        return o.gain * (OpAmpDevice.val(dx, o.inP) - OpAmpDevice.val(dx, o.inM));
+    }
+
+    /**
      * Replace op-amp {@code j}'s DC state row by a clamp at one edge of its window:
      * {@code x − (V(vPos) − swingHigh) = 0} when {@code high}, else {@code x − (V(vNeg) + swingLow) = 0}.
      * Used by the DC solver's limiter active-set search.
