@@ -74,9 +74,9 @@ public final class Circuit {
         return Optional.ofNullable(byName.get(name));
     }
 
-    /** Whether {@code node} is ground or a declared node. */
+    /** Whether {@code node} is ground (or its alias) or a declared node. */
     public boolean hasNode(String node) {
-        return GROUND.equals(node) || nodes.contains(node);
+        return GROUND.equals(node) || GROUND_ALIAS.equalsIgnoreCase(node) || nodes.contains(node);
     }
 
     /** A copy with one element replaced by the result of {@code change}; the name must stay. */
@@ -191,21 +191,40 @@ public final class Circuit {
          * Validate and build. Ground aliases in element terminals are rewritten to
          * {@link Circuit#GROUND}.
          *
-         * @throws CircuitException with kind UNKNOWN_NODE when an element uses an undeclared node,
-         *                          DUPLICATE_NAME when a node and an element share a name
+         * @throws CircuitException with kind UNKNOWN_NODE when an element uses an undeclared node
+         *                          (part: the element, field: the terminal, for example {@code "b"});
+         *                          BAD_CONNECTION when ground aliases put both terminals of a
+         *                          source, or both supply pins of an op-amp, on ground
          */
         public Circuit build() {
             List<Element> list = new ArrayList<>(elements.size());
             for (Element e : elements.values()) {
-                for (String t : e.terminals()) {
+                List<String> terminals = e.terminals();
+                List<String> fields = terminalFields(e);
+                for (int i = 0; i < terminals.size(); i++) {
+                    String t = terminals.get(i);
                     if (!isGround(t) && !nodes.contains(t)) {
-                        throw new CircuitException(CircuitException.Kind.UNKNOWN_NODE, e.name(), "terminals",
-                                e.name() + " refers to node '" + t + "', which is not declared");
+                        throw new CircuitException(CircuitException.Kind.UNKNOWN_NODE, e.name(), fields.get(i),
+                                e.name() + "." + fields.get(i) + " refers to node '" + t + "', which is not declared");
                     }
                 }
                 list.add(groundAliasesRewritten(e));
             }
             return new Circuit(title, new ArrayList<>(nodes), list);
+        }
+
+        /** The record component names of {@code e}'s terminals, in {@link Element#terminals()} order. */
+        private static List<String> terminalFields(Element e) {
+            if (e instanceof Resistor) {
+                return List.of("a", "b");
+            } else if (e instanceof Capacitor || e instanceof VoltageSource) {
+                return List.of("plus", "minus");
+            } else if (e instanceof CurrentSource) {
+                return List.of("from", "to");
+            } else if (e instanceof OpAmp) {
+                return List.of("inPlus", "inMinus", "vPos", "vNeg", "out");
+            }
+            throw new IllegalStateException("unhandled element type " + e.getClass());
         }
 
         private static boolean isGround(String n) {

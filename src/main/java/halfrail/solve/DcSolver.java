@@ -6,6 +6,7 @@ import halfrail.circuit.OpAmpParams;
 import halfrail.circuit.VoltageSource;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -15,9 +16,25 @@ import java.util.Map;
  *
  * <p>The start is the solution of the circuit with every op-amp limiter switched off (a linear
  * solve); circuits whose op-amps stay linear then converge in one or two iterations. When
- * Newton fails, gmin stepping and then source stepping are tried. Each loop is bounded by a
- * named limit and ends in {@link AnalysisException} of kind NO_CONVERGENCE or SINGULAR.
- * Nodes without a DC path are reported before any solve as FLOATING_NODE.
+ * Newton fails, these are tried in turn, each from the linearised start: the limiter active-set
+ * search ({@link OperatingPoint.Strategy#LIMITER_ACTIVE_SET}), gain stepping
+ * ({@link OperatingPoint.Strategy#GAIN_STEPPING}), gmin stepping and source stepping. The
+ * strategy that succeeded is reported. Each loop is bounded by a named limit and ends in
+ * {@link AnalysisException} of kind NO_CONVERGENCE, or SINGULAR when the linearised circuit is
+ * singular and no strategy succeeds (a loop of voltage sources, for example). Nodes without a DC
+ * path are reported before any solve as FLOATING_NODE.
+ *
+ * <p>Op-amp limiter handling. Beyond its knee the limiter is flat, so its Newton linearisation
+ * says the output does not depend on the inputs; a saturated output whose target has moved to
+ * the other side of the window would then jump from rail to rail on every iteration. So in each
+ * iteration, an op-amp whose open-loop target lies beyond one edge of its window while its state
+ * does not yet lie beyond that same edge has its state row replaced by the unlimited row
+ * {@code x = u} (the linearised circuit): the step then lands on the solution with that op-amp
+ * linear, and the next iteration clamps it if that solution lies outside the window. If such a
+ * step moves the state away from the side its target lies on (the signature of positive
+ * feedback, where the linear solution is the unstable middle point), the op-amp keeps its
+ * limited row for that iteration. At a solution no op-amp qualifies, so the converged iterate
+ * satisfies the true equations. Steps are not damped.
  *
  * <p>An instance holds work arrays for one circuit size; it is not thread-safe.
  */
@@ -30,12 +47,26 @@ public final class DcSolver {
     public static final double VOLTAGE_TOLERANCE = 1e-9;
     /** Absolute change in a current unknown below which Newton counts it converged, A. */
     public static final double CURRENT_TOLERANCE = 1e-13;
-    /** Largest change of any voltage unknown in one Newton iteration after the first, V. */
+    /**
+     * Formerly the largest voltage change per Newton iteration, V. No longer applied: uniform
+     * damping of the op-amp limiter's steps made saturated stages oscillate about their solution
+     * instead of re-entering the linear region (see the class comment). Kept for compatibility.
+     *
+     * @deprecated not used by the solver any more
+     */
+    @Deprecated
     public static final double MAX_VOLTAGE_STEP = 2.0;
-    /** Largest Kirchhoff current-law residual accepted at a node of a converged solution, A. */
+    /**
+     * Largest Kirchhoff current-law residual accepted at a node of a converged solution, A, on top
+     * of {@link #RESIDUAL_RELATIVE_TOLERANCE} times the magnitude of the currents meeting there.
+     */
     public static final double KCL_TOLERANCE_AMPS = 1e-9;
+    /** Relative part of the residual test: a fraction of the sum of |current| terms at the node. */
+    public static final double RESIDUAL_RELATIVE_TOLERANCE = 1e-6;
     /** Starting shunt conductance of gmin stepping, S. */
     public static final double GMIN_START = 1e-2;
+    /** Smallest shunt conductance of gmin stepping before the final solve without it, S. */
+    public static final double GMIN_END = 1e-13;
     /** Factor by which gmin falls per step. */
     public static final double GMIN_FACTOR = 10;
     /** Smallest source step of source stepping before giving up. */
@@ -43,20 +74,64 @@ public final class DcSolver {
     /** Largest number of source-stepping solves. */
     public static final int MAX_SOURCE_STEPS = 400;
 
+    /** Largest total violation, V, at which the limiter active-set search accepts a set of modes. */
+    public static final double ACTIVE_SET_TOLERANCE = 1e-9;
+    /** Mode changes allowed per op-amp in the limiter active-set search (plus {@link #ACTIVE_SET_EXTRA_PASSES}). */
+    public static final int ACTIVE_SET_PASSES_PER_OP_AMP = 4;
+    /** Mode changes allowed in the limiter active-set search on top of the per-op-amp allowance. */
+    public static final int ACTIVE_SET_EXTRA_PASSES = 8;
+
+    /** Largest effective open-loop gain at the start of gain stepping, V/V. */
+    public static final double GAIN_STEPPING_START = 1;
+    /** Largest factor by which gain stepping raises every op-amp's gain in one step. */
+    public static final double GAIN_STEP_FACTOR = 10;
+    /** Smallest gain-stepping factor before giving up (steps are refined by square roots). */
+    public static final double MIN_GAIN_STEP_FACTOR = 1.001;
+    /** Largest number of gain-stepping solves. */
+    public static final int MAX_GAIN_STEPS = 200;
+
+    /**
+     * Loop gain (dimensionless) above which an op-amp resting in its linear region marks the
+     * operating point as unstable: its target moves by more than its output does, so with the
+     * dominant-pole dynamics dx/dt = ωp·(u − x) any disturbance grows.
+     */
+    public static final double UNSTABLE_LOOP_GAIN = 1;
+
+    private static final int ROW_LIMITED = 0;
+    private static final int ROW_UNLIMITED = 1;
+    private static final int ROW_CLAMP_HIGH = 2;
+    private static final int ROW_CLAMP_LOW = 3;
+
     private final MnaSystem system;
     private final int n;
+    private final int nodeCount;
+    private final int branchCount;
+    private final int opAmpCount;
     private final double[] f;
     private final double[][] g;
     private final double[] dx;
+    private final double[] rowMagnitude;
+    /** Row used for each op-amp's state in the current iteration: one of the ROW_ constants. */
+    private final int[] rowKind;
+    private final double[] limiter = new double[4];
     private final LinearSolver lu = new DenseLu();
     private int iterations;
+    /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
+    private double gainScale = 1;
+    private boolean linearStartSingular;
 
     public DcSolver(MnaSystem system) {
         this.system = system;
         this.n = system.size();
+        this.nodeCount = system.nodeCount();
+        this.opAmpCount = system.opAmpCount();
+        Circuit c = system.circuit();
+        this.branchCount = c.elements(VoltageSource.class).size() + opAmpCount;
         this.f = new double[n];
         this.g = new double[n][n];
         this.dx = new double[n];
+        this.rowMagnitude = new double[n];
+        this.rowKind = new int[opAmpCount];
     }
 
     /** Solve {@code circuit}'s operating point. */
@@ -72,39 +147,89 @@ public final class DcSolver {
     /**
      * Solve, starting Newton from {@code guess} when given (for example the previous point of a
      * sweep); a null guess starts from the linearised circuit.
+     *
+     * @throws AnalysisException FLOATING_NODE naming the nodes without a DC path; BAD_REQUEST for a
+     *                           guess of the wrong length; SINGULAR when the circuit's equations
+     *                           are singular (for example a loop of voltage sources); NO_CONVERGENCE
+     *                           when every strategy fails
      */
     public OperatingPoint solveFrom(double[] guess) {
-        List<String> floating = FloatingNodes.find(system.circuit());
-        if (!floating.isEmpty()) {
-            throw new AnalysisException(AnalysisException.Kind.FLOATING_NODE,
-                    "no DC path to a defined voltage at node" + (floating.size() > 1 ? "s " : " ")
-                            + String.join(", ", floating), floating);
+        checkFloating();
+        if (guess != null && guess.length != n) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
+                    "a starting guess needs " + n + " unknowns, got " + guess.length);
         }
         iterations = 0;
         double[] x = new double[n];
         if (guess != null) {
             System.arraycopy(guess, 0, x, 0, n);
         } else {
-            linearStart(x);
+            linearStartOr(x);
         }
-        OperatingPoint.Strategy strategy = OperatingPoint.Strategy.NEWTON;
-        if (!newton(x, 1, 0)) {
-            strategy = OperatingPoint.Strategy.GMIN_STEPPING;
-            if (!gminStepping(x)) {
-                strategy = OperatingPoint.Strategy.SOURCE_STEPPING;
-                if (!sourceStepping(x)) {
-                    throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
-                            "the operating point did not converge: Newton (" + MAX_NEWTON_ITERATIONS
-                                    + " iterations), gmin stepping from " + GMIN_START
-                                    + " S and source stepping down to steps of " + MIN_SOURCE_STEP + " all failed");
-                }
-            }
+        if (newton(x, 1, 0)) {
+            return result(x, OperatingPoint.Strategy.NEWTON);
+        }
+        if (limiterActiveSet(x)) {
+            return result(x, OperatingPoint.Strategy.LIMITER_ACTIVE_SET);
+        }
+        if (gainStepping(x)) {
+            return result(x, OperatingPoint.Strategy.GAIN_STEPPING);
+        }
+        if (gminStepping(x)) {
+            return result(x, OperatingPoint.Strategy.GMIN_STEPPING);
+        }
+        if (sourceStepping(x)) {
+            return result(x, OperatingPoint.Strategy.SOURCE_STEPPING);
+        }
+        throw failure();
+    }
+
+    /**
+     * Solve with one strategy only, from the linearised start (package-private: lets tests
+     * exercise each convergence aid on its own).
+     */
+    OperatingPoint solveUsing(OperatingPoint.Strategy strategy) {
+        checkFloating();
+        iterations = 0;
+        double[] x = new double[n];
+        linearStartOr(x);
+        boolean ok = switch (strategy) {
+            case NEWTON -> newton(x, 1, 0);
+            case LIMITER_ACTIVE_SET -> limiterActiveSet(x);
+            case GAIN_STEPPING -> gainStepping(x);
+            case GMIN_STEPPING -> gminStepping(x);
+            case SOURCE_STEPPING -> sourceStepping(x);
+        };
+        if (!ok) {
+            throw failure();
         }
         return result(x, strategy);
     }
 
+    private void checkFloating() {
+        List<String> floating = FloatingNodes.find(system.circuit());
+        if (!floating.isEmpty()) {
+            throw new AnalysisException(AnalysisException.Kind.FLOATING_NODE,
+                    "no DC path to a defined voltage at node" + (floating.size() > 1 ? "s " : " ")
+                            + String.join(", ", floating), floating);
+        }
+    }
+
+    private AnalysisException failure() {
+        if (linearStartSingular) {
+            return new AnalysisException(AnalysisException.Kind.SINGULAR,
+                    "the circuit equations are singular (for example a loop of voltage sources or two"
+                            + " driven outputs tied together), and no strategy found an operating point");
+        }
+        return new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
+                "the operating point did not converge: Newton (" + MAX_NEWTON_ITERATIONS
+                        + " iterations), the limiter active-set search, gain stepping, gmin stepping from " + GMIN_START
+                        + " S and source stepping down to steps of " + MIN_SOURCE_STEP + " all failed");
+    }
+
+    /** The solution of the circuit with every limiter switched off, from x = 0. */
     private void linearStart(double[] x) {
-        java.util.Arrays.fill(x, 0);
+        Arrays.fill(x, 0);
         system.evaluate(x, 0, Mode.DC, 1, 0, false, f, g, null, null);
         lu.factor(g, n);
         for (int i = 0; i < n; i++) {
@@ -112,14 +237,205 @@ public final class DcSolver {
         }
         lu.solve(dx);
         for (int i = 0; i < n; i++) {
-            x[i] = dx[i];
+            x[i] = Double.isFinite(dx[i]) ? dx[i] : 0;
         }
     }
 
-    private boolean gminStepping(double[] x) {
-        double[] trial = x.clone();
+    /** {@link #linearStart}, or all zeros when the linearised circuit is singular. */
+    private void linearStartOr(double[] x) {
+        try {
+            linearStart(x);
+            linearStartSingular = false;
+        } catch (AnalysisException e) {
+            linearStartSingular = true;
+            Arrays.fill(x, 0);
+        }
+    }
+
+    /**
+     * Limiter active-set search, for circuits where op-amps in a loop keep changing region together
+     * (Newton with one region change per op-amp and iteration can then cycle). Each op-amp is given
+     * an explicit mode: linear (x = u), clamped at its high edge or clamped at its low edge. From
+     * all-linear, the circuit is solved with the modes held; then the one op-amp whose mode is most
+     * inconsistent (a linear output beyond an edge, or a clamped output whose target has come back
+     * inside) changes mode, and the circuit is solved again; a clamped op-amp made linear whose
+     * linear solution lies beyond the edge it was clamped at is in positive feedback and takes the
+     * other clamp instead. One change per pass avoids the cycles
+     * of changing all at once. A consistent set of modes is then the start for a final Newton solve
+     * on the true, smooth equations. Bounded by {@link #ACTIVE_SET_PASSES_PER_OP_AMP} per op-amp
+     * plus {@link #ACTIVE_SET_EXTRA_PASSES}; updates x only on success.
+     */
+    private boolean limiterActiveSet(double[] x) {
+        if (opAmpCount == 0) {
+            return false;
+        }
+        double[] trial = new double[n];
         linearStartOr(trial);
-        for (double gmin = GMIN_START; gmin > 1e-13; gmin /= GMIN_FACTOR) {
+        int[] mode = new int[opAmpCount];
+        Arrays.fill(mode, ROW_UNLIMITED);
+        int passes = ACTIVE_SET_PASSES_PER_OP_AMP * opAmpCount + ACTIVE_SET_EXTRA_PASSES;
+        boolean consistent = false;
+        int released = -1;
+        int releasedFrom = ROW_UNLIMITED;
+        for (int pass = 0; pass < passes && !consistent; pass++) {
+            if (!heldModeNewton(trial, mode)) {
+                return false;
+            }
+            if (released >= 0) {
+                // A clamped op-amp just made linear whose linear solution lies beyond the edge it
+                // was clamped at is in positive feedback: its consistent mode is the other clamp.
+                system.opAmpLimiter(released, trial, 1, 1, limiter);
+                double xs = trial[system.opAmpStateUnknown(released)];
+                boolean back = releasedFrom == ROW_CLAMP_LOW ? xs < limiter[1] : xs > limiter[2];
+                int op = released;
+                released = -1;
+                if (back) {
+                    mode[op] = releasedFrom == ROW_CLAMP_LOW ? ROW_CLAMP_HIGH : ROW_CLAMP_LOW;
+                    continue;
+                }
+            }
+            int worst = -1;
+            int worstMode = ROW_UNLIMITED;
+            double worstAmount = ACTIVE_SET_TOLERANCE;
+            for (int j = 0; j < opAmpCount; j++) {
+                system.opAmpLimiter(j, trial, 1, 1, limiter);
+                double u = limiter[0];
+                double lo = limiter[1];
+                double hi = limiter[2];
+                if (limiter[3] <= 0) {
+                    continue; // no window: the limited row is already linear in the supplies
+                }
+                double xs = trial[system.opAmpStateUnknown(j)];
+                double amount = 0;
+                int next = mode[j];
+                switch (mode[j]) {
+                    case ROW_UNLIMITED -> {
+                        if (xs > hi) {
+                            amount = xs - hi;
+                            next = ROW_CLAMP_HIGH;
+                        } else if (xs < lo) {
+                            amount = lo - xs;
+                            next = ROW_CLAMP_LOW;
+                        }
+                    }
+                    case ROW_CLAMP_HIGH -> {
+                        amount = hi - u;
+                        next = ROW_UNLIMITED;
+                    }
+                    case ROW_CLAMP_LOW -> {
+                        amount = u - lo;
+                        next = ROW_UNLIMITED;
+                    }
+                    default -> { }
+                }
+                if (amount > worstAmount) {
+                    worstAmount = amount;
+                    worst = j;
+                    worstMode = next;
+                }
+            }
+            if (worst < 0) {
+                consistent = true;
+            } else {
+                if (worstMode == ROW_UNLIMITED) {
+                    released = worst;
+                    releasedFrom = mode[worst];
+                }
+                mode[worst] = worstMode;
+            }
+        }
+        if (!consistent || !newton(trial, 1, 0)) {
+            return false;
+        }
+        System.arraycopy(trial, 0, x, 0, n);
+        return true;
+    }
+
+    /** Newton with every op-amp's state row held in {@code mode}; true when converged. */
+    private boolean heldModeNewton(double[] x, int[] mode) {
+        for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
+            iterations++;
+            System.arraycopy(mode, 0, rowKind, 0, opAmpCount);
+            if (!step(x, 1, 0)) {
+                return false;
+            }
+            boolean converged = true;
+            for (int i = 0; i < n; i++) {
+                if (!Double.isFinite(dx[i])) {
+                    return false;
+                }
+                double next = x[i] + dx[i];
+                double tol = RELATIVE_TOLERANCE * Math.max(Math.abs(x[i]), Math.abs(next))
+                        + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
+                if (Math.abs(dx[i]) > tol) {
+                    converged = false;
+                }
+                x[i] = next;
+            }
+            if (converged) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /**
+     * Gain stepping: a homotopy in the op-amps' open-loop gains. Every gain is scaled so that the
+     * largest is {@link #GAIN_STEPPING_START}, where each op-amp barely amplifies and Newton
+     * converges from zero; the scale then rises by up to {@link #GAIN_STEP_FACTOR} per step, each
+     * solve starting from the last, with the factor refined by square roots after a failure, until
+     * the real gains are reached. The solution follows a continuous path, which finds operating
+     * points where an op-amp in a loop rests in its limiter's knee (no set of linear/clamped modes
+     * is consistent there). Bounded by {@link #MAX_GAIN_STEPS} and {@link #MIN_GAIN_STEP_FACTOR};
+     * updates x only on success.
+     */
+    private boolean gainStepping(double[] x) {
+        if (opAmpCount == 0) {
+            return false;
+        }
+        double maxGain = 0;
+        for (OpAmp o : system.circuit().elements(OpAmp.class)) {
+            maxGain = Math.max(maxGain, o.params().openLoopGain());
+        }
+        double level = Math.min(1, GAIN_STEPPING_START / maxGain);
+        double[] trial = new double[n];
+        double[] last = new double[n];
+        try {
+            gainScale = level;
+            if (!newton(trial, 1, 0)) {
+                return false;
+            }
+            double factor = GAIN_STEP_FACTOR;
+            int solves = 0;
+            while (level < 1) {
+                if (++solves > MAX_GAIN_STEPS) {
+                    return false;
+                }
+                double next = Math.min(1, level * factor);
+                System.arraycopy(trial, 0, last, 0, n);
+                gainScale = next;
+                if (newton(trial, 1, 0)) {
+                    level = next;
+                    factor = Math.min(factor * factor, GAIN_STEP_FACTOR);
+                } else {
+                    System.arraycopy(last, 0, trial, 0, n);
+                    factor = Math.sqrt(factor);
+                    if (factor < MIN_GAIN_STEP_FACTOR) {
+                        return false;
+                    }
+                }
+            }
+        } finally {
+            gainScale = 1;
+        }
+        System.arraycopy(trial, 0, x, 0, n);
+        return true;
+    }
+
+    private boolean gminStepping(double[] x) {
+        double[] trial = new double[n];
+        linearStartOr(trial);
+        for (double gmin = GMIN_START; gmin >= GMIN_END; gmin /= GMIN_FACTOR) {
             if (!newton(trial, 1, gmin)) {
                 return false;
             }
@@ -129,14 +445,6 @@ public final class DcSolver {
         }
         System.arraycopy(trial, 0, x, 0, n);
         return true;
-    }
-
-    private void linearStartOr(double[] x) {
-        try {
-            linearStart(x);
-        } catch (AnalysisException e) {
-            java.util.Arrays.fill(x, 0);
-        }
     }
 
     private boolean sourceStepping(double[] x) {
@@ -171,36 +479,27 @@ public final class DcSolver {
 
     /** Newton at one source scale and gmin; updates x in place; true when converged. */
     private boolean newton(double[] x, double scale, double gmin) {
-        int nodes = system.nodeCount();
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             iterations++;
-            system.evaluate(x, 0, Mode.DC, scale, gmin, f, g, null, null);
-            try {
-                lu.factor(g, n);
-            } catch (AnalysisException e) {
+            boolean anyUnlimited = chooseRows(x, scale);
+            if (!step(x, scale, gmin)) {
                 return false;
             }
-            for (int i = 0; i < n; i++) {
-                dx[i] = -f[i];
+            boolean residualOk = residualAcceptable();
+            if (anyUnlimited && undoAgainstTarget(x, scale)) {
+                if (!step(x, scale, gmin)) {
+                    return false;
+                }
             }
-            lu.solve(dx);
-            double maxStep = 0;
+            boolean converged = residualOk;
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(dx[i])) {
                     return false;
                 }
-                if (isVoltage(i, nodes)) {
-                    maxStep = Math.max(maxStep, Math.abs(dx[i]));
-                }
-            }
-            double damp = it > 0 && maxStep > MAX_VOLTAGE_STEP ? MAX_VOLTAGE_STEP / maxStep : 1;
-            boolean converged = damp == 1;
-            for (int i = 0; i < n; i++) {
-                double step = damp * dx[i];
-                double next = x[i] + step;
+                double next = x[i] + dx[i];
                 double tol = RELATIVE_TOLERANCE * Math.max(Math.abs(x[i]), Math.abs(next))
-                        + (isVoltage(i, nodes) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
-                if (Math.abs(step) > tol) {
+                        + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
+                if (Math.abs(dx[i]) > tol) {
                     converged = false;
                 }
                 x[i] = next;
@@ -212,17 +511,160 @@ public final class DcSolver {
         return false;
     }
 
-    /** Node voltages and op-amp states are voltages; branch currents are not. */
-    private boolean isVoltage(int i, int nodes) {
-        return i < nodes || i >= nodes + branchCount();
+    /**
+     * Evaluate at x, apply the state rows chosen in {@link #rowKind}, factor and solve for
+     * the Newton step into {@link #dx}; records the node rows' magnitudes for the residual test.
+     * False when the matrix is singular.
+     */
+    private boolean step(double[] x, double scale, double gmin) {
+        system.evaluate(x, 0, Mode.DC, scale, gmin, true, gainScale, f, g, null, null);
+        for (int j = 0; j < opAmpCount; j++) {
+            switch (rowKind[j]) {
+                case ROW_UNLIMITED -> system.unlimitedStateRow(j, x, scale, gainScale, f, g);
+                case ROW_CLAMP_HIGH -> system.clampedStateRow(j, x, true, f, g);
+                case ROW_CLAMP_LOW -> system.clampedStateRow(j, x, false, f, g);
+                default -> { }
+            }
+        }
+        for (int i = 0; i < nodeCount; i++) {
+            double m = 0;
+            double[] row = g[i];
+            for (int k = 0; k < n; k++) {
+                m += Math.abs(row[k] * x[k]);
+            }
+            rowMagnitude[i] = m;
+        }
+        try {
+            lu.factor(g, n);
+        } catch (AnalysisException e) {
+            return false;
+        }
+        for (int i = 0; i < n; i++) {
+            dx[i] = -f[i];
+        }
+        lu.solve(dx);
+        return true;
     }
 
-    private int branchCount() {
-        Circuit c = system.circuit();
-        return c.elements(VoltageSource.class).size() + c.elements(OpAmp.class).size();
+    /** Whether the KCL residual at x (held in f by the last {@link #step}) is within tolerance at every node. */
+    private boolean residualAcceptable() {
+        for (int i = 0; i < nodeCount; i++) {
+            if (!(Math.abs(f[i]) <= KCL_TOLERANCE_AMPS + RESIDUAL_RELATIVE_TOLERANCE * rowMagnitude[i])) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** Marks the op-amps whose target lies beyond an edge their state has not reached; true if any. */
+    private boolean chooseRows(double[] x, double scale) {
+        boolean any = false;
+        for (int j = 0; j < opAmpCount; j++) {
+            system.opAmpLimiter(j, x, scale, gainScale, limiter);
+            double u = limiter[0];
+            double lo = limiter[1];
+            double hi = limiter[2];
+            double k = limiter[3];
+            double xs = x[system.opAmpStateUnknown(j)];
+            boolean release = k > 0
+                    && ((u > hi - k && xs <= hi - k) || (u < lo + k && xs >= lo + k));
+            rowKind[j] = release ? ROW_UNLIMITED : ROW_LIMITED;
+            any |= release;
+        }
+        return any;
+    }
+
+    /**
+     * After a step with unlimited rows: an op-amp whose state the step moved away from the side
+     * its target lies on goes back to its limited row. True when any did (the step must be redone).
+     */
+    private boolean undoAgainstTarget(double[] x, double scale) {
+        boolean any = false;
+        for (int j = 0; j < opAmpCount; j++) {
+            if (rowKind[j] != ROW_UNLIMITED) {
+                continue;
+            }
+            system.opAmpLimiter(j, x, scale, gainScale, limiter);
+            double u = limiter[0];
+            double hi = limiter[2];
+            double k = limiter[3];
+            double move = dx[system.opAmpStateUnknown(j)];
+            boolean targetHigh = u > hi - k;
+            if (targetHigh ? move < 0 : move > 0) {
+                rowKind[j] = ROW_LIMITED;
+                any = true;
+            }
+        }
+        return any;
+    }
+
+    /**
+     * Moves a converged point off an unstable equilibrium. An op-amp in its linear region whose
+     * loop gain exceeds {@link #UNSTABLE_LOOP_GAIN} (positive feedback, as in a Schmitt trigger
+     * whose input lies inside its hysteresis band) sits on the unstable middle solution, which a
+     * real circuit never rests on. The op-amp is then held at the nearer edge of its window (then
+     * the other) and the circuit solved again; a converged result with that op-amp on its edge
+     * replaces x. Which of two stable states a real circuit takes depends on its history, which a
+     * DC analysis does not know. At most two extra solves per op-amp; x is kept when both fail.
+     */
+    private void preferStable(double[] x) {
+        int[] mode = new int[opAmpCount];
+        for (int j = 0; j < opAmpCount; j++) {
+            system.opAmpLimiter(j, x, 1, 1, limiter);
+            double u = limiter[0];
+            double lo = limiter[1];
+            double hi = limiter[2];
+            double k = limiter[3];
+            if (k <= 0 || u <= lo + k || u >= hi - k || !(loopGain(j, x) > UNSTABLE_LOOP_GAIN)) {
+                continue;
+            }
+            int st = system.opAmpStateUnknown(j);
+            boolean upperFirst = x[st] >= 0.5 * (lo + hi);
+            for (int attempt = 0; attempt < 2; attempt++) {
+                boolean high = upperFirst == (attempt == 0);
+                double[] trial = x.clone();
+                Arrays.fill(mode, ROW_LIMITED);
+                mode[j] = high ? ROW_CLAMP_HIGH : ROW_CLAMP_LOW;
+                if (heldModeNewton(trial, mode) && newton(trial, 1, 0)) {
+                    system.opAmpLimiter(j, trial, 1, 1, limiter);
+                    boolean onEdge = high ? limiter[0] >= limiter[2] - limiter[3] : limiter[0] <= limiter[1] + limiter[3];
+                    if (onEdge) {
+                        System.arraycopy(trial, 0, x, 0, n);
+                        break;
+                    }
+                }
+            }
+        }
+    }
+
+    /**
+     * Loop gain of op-amp {@code j} at x: the change of its target u per volt of change of its
+     * state, with the rest of the circuit linearised at x and the op-amp's own state row opened.
+     * NaN when the opened circuit is singular.
+     */
+    private double loopGain(int j, double[] x) {
+        system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
+        int st = system.opAmpStateUnknown(j);
+        Arrays.fill(g[st], 0, n, 0);
+        g[st][st] = 1;
+        try {
+            lu.factor(g, n);
+        } catch (AnalysisException e) {
+            return Double.NaN;
+        }
+        Arrays.fill(dx, 0);
+        dx[st] = 1;
+        lu.solve(dx);
+        return system.opAmpTargetChange(j, dx);
+    }
+
+    /** Node voltages and op-amp states are voltages; branch currents are not. */
+    private boolean isVoltage(int i) {
+        return i < nodeCount || i >= nodeCount + branchCount;
     }
 
     private OperatingPoint result(double[] x, OperatingPoint.Strategy strategy) {
+        preferStable(x);
         Circuit c = system.circuit();
         system.evaluate(x, 0, Mode.DC, 1, 0, f, null, null, null);
         double residual = 0;

@@ -1,12 +1,15 @@
 package halfrail.solve;
 
 /**
- * Dense LU decomposition with partial (row) pivoting, in place. A pivot whose magnitude is
- * below {@link #DEFAULT_TOO_SMALL} times the largest magnitude in its column of the original
- * matrix marks the matrix singular.
+ * Dense LU decomposition with row equilibration and partial (row) pivoting, in place. Each row
+ * is first scaled so that its largest magnitude is 1 (circuit matrices mix conductances of
+ * 1e-12 S with op-amp gains of 1e8 in one matrix, so a threshold relative to the largest entry
+ * of the whole matrix would call well-posed circuits singular). A pivot whose magnitude in the
+ * equilibrated matrix is at or below {@link #DEFAULT_TOO_SMALL} marks the matrix singular, as
+ * does a row that is all zeros or an entry that is not finite.
  */
 public final class DenseLu implements LinearSolver {
-    /** Relative pivot threshold below which the matrix is treated as singular. */
+    /** Pivot threshold, relative to the largest entry of the pivot's row, below which the matrix is singular. */
     public static final double DEFAULT_TOO_SMALL = 1e-14;
 
     private final double tooSmall;
@@ -14,11 +17,13 @@ public final class DenseLu implements LinearSolver {
     private int n;
     private int[] perm = new int[0];
     private double[] work = new double[0];
+    private double[] rowScale = new double[0];
 
     public DenseLu() {
         this(DEFAULT_TOO_SMALL);
     }
 
+    /** @param tooSmall pivot threshold relative to the pivot row's largest original entry */
     public DenseLu(double tooSmall) {
         this.tooSmall = tooSmall;
     }
@@ -30,20 +35,31 @@ public final class DenseLu implements LinearSolver {
         if (perm.length < size) {
             perm = new int[size];
             work = new double[size];
+            rowScale = new double[size];
         }
-        double scale = 0;
         for (int i = 0; i < size; i++) {
             perm[i] = i;
             double[] row = a[i];
+            double max = 0;
             for (int j = 0; j < size; j++) {
-                scale = Math.max(scale, Math.abs(row[j]));
+                double v = Math.abs(row[j]);
+                if (!(v <= Double.MAX_VALUE)) {
+                    throw new AnalysisException(AnalysisException.Kind.SINGULAR,
+                            "the system matrix holds a non-finite entry in row " + i);
+                }
+                max = Math.max(max, v);
+            }
+            if (max == 0) {
+                throw new AnalysisException(AnalysisException.Kind.SINGULAR,
+                        "the system matrix has an empty row " + i);
+            }
+            double inv = 1.0 / max;
+            rowScale[i] = inv;
+            for (int j = 0; j < size; j++) {
+                row[j] *= inv;
             }
         }
-        if (scale == 0 || !Double.isFinite(scale)) {
-            throw new AnalysisException(AnalysisException.Kind.SINGULAR,
-                    scale == 0 ? "the system matrix is zero" : "the system matrix holds a non-finite entry");
-        }
-        double threshold = tooSmall * scale;
+        double threshold = tooSmall;
         for (int k = 0; k < size; k++) {
             int p = k;
             double max = Math.abs(a[k][k]);
@@ -54,7 +70,7 @@ public final class DenseLu implements LinearSolver {
                     p = i;
                 }
             }
-            if (max <= threshold) {
+            if (!(max > threshold)) {
                 throw new AnalysisException(AnalysisException.Kind.SINGULAR,
                         "the system matrix is singular at unknown " + k);
             }
@@ -86,7 +102,7 @@ public final class DenseLu implements LinearSolver {
     public void solve(double[] b) {
         double[] y = work;
         for (int i = 0; i < n; i++) {
-            y[i] = b[perm[i]];
+            y[i] = b[perm[i]] * rowScale[perm[i]];
         }
         for (int i = 0; i < n; i++) {
             double[] row = lu[i];

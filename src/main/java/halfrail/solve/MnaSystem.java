@@ -55,6 +55,7 @@ public final class MnaSystem {
     private final int nodeCount;
     private final int size;
     private final Device[] devices;
+    private final OpAmpDevice[] opAmps;
 
     private MnaSystem(Circuit circuit) {
         this.circuit = circuit;
@@ -89,6 +90,13 @@ public final class MnaSystem {
             list.add(device(e));
         }
         this.devices = list.toArray(new Device[0]);
+        List<OpAmpDevice> amps = new ArrayList<>();
+        for (Device d : devices) {
+            if (d instanceof OpAmpDevice o) {
+                amps.add(o);
+            }
+        }
+        this.opAmps = amps.toArray(new OpAmpDevice[0]);
     }
 
     /** Assemble the equations of {@code circuit}. */
@@ -184,6 +192,15 @@ public final class MnaSystem {
      */
     void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit,
                   double[] f, double[][] g, double[] q, double[][] c) {
+        evaluate(x, t, mode, sourceScale, gmin, limit, 1, f, g, q, c);
+    }
+
+    /**
+     * As above, with every op-amp's open-loop gain multiplied by {@code gainScale} (1 for the real
+     * circuit; smaller values serve the DC solver's gain stepping).
+     */
+    void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit, double gainScale,
+                  double[] f, double[][] g, double[] q, double[][] c) {
         java.util.Arrays.fill(f, 0, size, 0);
         if (g != null) {
             for (int i = 0; i < size; i++) {
@@ -198,7 +215,7 @@ public final class MnaSystem {
                 java.util.Arrays.fill(c[i], 0, size, 0);
             }
         }
-        Stamp s = new Stamp(x, f, g, q, c, limit);
+        Stamp s = new Stamp(x, f, g, q, c, limit, gainScale);
         for (Device d : devices) {
             d.load(s, t, mode, sourceScale);
         }
@@ -248,6 +265,84 @@ public final class MnaSystem {
         throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
     }
 
+    /** Number of op-amps, in circuit order (for the DC solver's limiter handling). */
+    int opAmpCount() {
+        return opAmps.length;
+    }
+
+    /** Index of op-amp {@code j}'s internal state unknown. */
+    int opAmpStateUnknown(int j) {
+        return opAmps[j].st;
+    }
+
+    /**
+     * Op-amp {@code j}'s limiter at {@code x}, with its gain times {@code gainScale}: writes the open-loop target u, the window's low and
+     * high edges and the knee width actually used (all V) into {@code out[0..3]}; the knee is 0
+     * when the supplies leave no window.
+     */
+    void opAmpLimiter(int j, double[] x, double sourceScale, double gainScale, double[] out) {
+        OpAmpDevice o = opAmps[j];
+        OpAmpParams p = o.part.params();
+        double u = o.gain * gainScale * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
+        double lo = OpAmpDevice.val(x, o.vn) + p.swingLowVolts();
+        double hi = OpAmpDevice.val(x, o.vp) - p.swingHighVolts();
+        double half = 0.5 * (hi - lo);
+        out[0] = u;
+        out[1] = lo;
+        out[2] = hi;
+        out[3] = half <= 0 ? 0 : Math.min(KNEE_VOLTS, 0.5 * half);
+    }
+
+    /**
+     * Replace op-amp {@code j}'s DC state row in {@code f} and {@code g} (as filled by
+     * {@link #evaluate} in {@link Mode#DC}) by its unlimited form {@code x − u = 0}: the row of the
+     * linearised circuit, which the DC solver uses to bring a limited output back into its window.
+     */
+    void unlimitedStateRow(int j, double[] x, double sourceScale, double gainScale, double[] f, double[][] g) {
+        OpAmpDevice o = opAmps[j];
+        OpAmpParams p = o.part.params();
+        int st = o.st;
+        double gain = o.gain * gainScale;
+        double u = gain * (OpAmpDevice.val(x, o.inP) - OpAmpDevice.val(x, o.inM) + sourceScale * p.offsetVolts());
+        f[st] = x[st] - u;
+        java.util.Arrays.fill(g[st], 0, size, 0);
+        g[st][st] = 1;
+        if (o.inP >= 0) {
+            g[st][o.inP] -= gain;
+        }
+        if (o.inM >= 0) {
+            g[st][o.inM] += gain;
+        }
+    }
+
+    /**
+     * The change of op-amp {@code j}'s open-loop target u, V, for a change {@code dx} of the
+     * unknowns: A·(dV(in+) − dV(in−)).
+     */
+    double opAmpTargetChange(int j, double[] dx) {
+        OpAmpDevice o = opAmps[j];
+        return o.gain * (OpAmpDevice.val(dx, o.inP) - OpAmpDevice.val(dx, o.inM));
+    }
+
+    /**
+     * Replace op-amp {@code j}'s DC state row by a clamp at one edge of its window:
+     * {@code x − (V(vPos) − swingHigh) = 0} when {@code high}, else {@code x − (V(vNeg) + swingLow) = 0}.
+     * Used by the DC solver's limiter active-set search.
+     */
+    void clampedStateRow(int j, double[] x, boolean high, double[] f, double[][] g) {
+        OpAmpDevice o = opAmps[j];
+        OpAmpParams p = o.part.params();
+        int st = o.st;
+        double edge = high ? OpAmpDevice.val(x, o.vp) - p.swingHighVolts() : OpAmpDevice.val(x, o.vn) + p.swingLowVolts();
+        f[st] = x[st] - edge;
+        java.util.Arrays.fill(g[st], 0, size, 0);
+        g[st][st] = 1;
+        int rail = high ? o.vp : o.vn;
+        if (rail >= 0) {
+            g[st][rail] -= 1;
+        }
+    }
+
     private Device device(Element e) {
         if (e instanceof Resistor r) {
             return new ResistorDevice(idx(r.a()), idx(r.b()), 1.0 / r.ohms());
@@ -276,9 +371,11 @@ public final class MnaSystem {
         final double[] q;
         final double[][] c;
         final boolean limit;
+        final double gainScale;
 
-        Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit) {
+        Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale) {
             this.limit = limit;
+            this.gainScale = gainScale;
             this.x = x;
             this.f = f;
             this.g = g;
@@ -460,7 +557,7 @@ public final class MnaSystem {
             s.g(br, br, p.outputOhms());
 
             // Limited open-loop target L(u) and its partial derivatives.
-            double u = gain * (s.v(inP) - s.v(inM) + scale * p.offsetVolts());
+            double u = gain * s.gainScale * (s.v(inP) - s.v(inM) + scale * p.offsetVolts());
             double lo = s.v(vn) + p.swingLowVolts();
             double hi = s.v(vp) - p.swingHighVolts();
             double limited;
@@ -480,19 +577,27 @@ public final class MnaSystem {
                 dLo = 0.5;
                 dHi = 0.5;
             } else {
-                double k = Math.min(KNEE_VOLTS, 0.5 * half);
+                // In a narrow window the knee is a quarter of the window, k = (hi − lo)/4, and so
+                // depends on both edges: ∂k/∂hi = 1/4, ∂k/∂lo = −1/4.
+                boolean narrow = 0.5 * half < KNEE_VOLTS;
+                double k = narrow ? 0.5 * half : KNEE_VOLTS;
+                double dkHi = narrow ? 0.25 : 0;
                 if (u > hi - k) {
-                    double e = Math.exp(-(u - (hi - k)) / k);
+                    double z = (u - (hi - k)) / k;
+                    double e = Math.exp(-z);
                     limited = hi - k * e;
                     dU = e;
-                    dHi = 1 - e;
-                    dLo = 0;
+                    double dk = -e * z; // ∂L/∂k
+                    dHi = 1 - e + dk * dkHi;
+                    dLo = -dk * dkHi;
                 } else if (u < lo + k) {
-                    double e = Math.exp((u - (lo + k)) / k);
+                    double z = ((lo + k) - u) / k;
+                    double e = Math.exp(-z);
                     limited = lo + k * e;
                     dU = e;
-                    dLo = 1 - e;
-                    dHi = 0;
+                    double dk = e * z; // ∂L/∂k
+                    dLo = 1 - e - dk * dkHi;
+                    dHi = dk * dkHi;
                 } else {
                     limited = u;
                     dU = 1;
@@ -525,7 +630,7 @@ public final class MnaSystem {
 
         /** Adds factor * dL/dx to row st. */
         private void addTargetJacobian(Stamp s, double factor, double dU, double dLo, double dHi) {
-            double du = factor * dU * gain;
+            double du = factor * dU * gain * s.gainScale;
             s.g(st, inP, du);
             s.g(st, inM, -du);
             s.g(st, vn, factor * dLo);

@@ -19,8 +19,15 @@ public record OperatingPoint(MnaSystem system, double[] solution, Map<String, Do
 
     /** How Newton's method was brought to converge. */
     public enum Strategy {
-        /** Plain damped Newton from the linearised starting point. */
+        /** Newton from the linearised starting point (or from the caller's guess). */
         NEWTON,
+        /**
+         * Newton from the result of the DC solver's limiter active-set search: op-amps held
+         * linear or clamped, one mode change at a time, until the modes are consistent.
+         */
+        LIMITER_ACTIVE_SET,
+        /** Newton along a path of op-amp open-loop gains raised from about 1 to their real values. */
+        GAIN_STEPPING,
         /** Newton with a shunt conductance on every node, stepped down to zero. */
         GMIN_STEPPING,
         /** Newton with all independent sources ramped up from zero. */
