@@ -61,6 +61,12 @@ public final class DcSolver {
      * of {@link #RESIDUAL_RELATIVE_TOLERANCE} times the magnitude of the currents meeting there.
      */
     public static final double KCL_TOLERANCE_AMPS = 1e-9;
+    /**
+     * Largest residual accepted in a voltage-source or op-amp equation of a converged solution, V.
+     * Looser than the step tolerance because an op-amp row in its linear region carries the
+     * rounding of A·(V+ − V−): with A = 1e8 that is about 1e-7 V.
+     */
+    public static final double EQUATION_RESIDUAL_VOLTS = 1e-6;
     /** Relative part of the residual test: a fraction of the sum of |current| terms at the node. */
     public static final double RESIDUAL_RELATIVE_TOLERANCE = 1e-6;
     /** Starting shunt conductance of gmin stepping, S. */
@@ -491,7 +497,9 @@ public final class DcSolver {
                     return false;
                 }
             }
-            boolean converged = residualOk;
+            // An iteration that used an unlimited state row solved other equations than the
+            // circuit's: it may not end the loop, however small its step.
+            boolean converged = residualOk && !anyUnlimitedRow();
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(dx[i])) {
                     return false;
@@ -505,6 +513,15 @@ public final class DcSolver {
                 x[i] = next;
             }
             if (converged) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private boolean anyUnlimitedRow() {
+        for (int j = 0; j < opAmpCount; j++) {
+            if (rowKind[j] != ROW_LIMITED) {
                 return true;
             }
         }
@@ -546,10 +563,20 @@ public final class DcSolver {
         return true;
     }
 
-    /** Whether the KCL residual at x (held in f by the last {@link #step}) is within tolerance at every node. */
+    /**
+     * Whether the residual at x (held in f by the last {@link #step}) is within tolerance in every
+     * row: Kirchhoff's current law at every node, and every source and op-amp equation within
+     * {@link #EQUATION_RESIDUAL_VOLTS}. The step size alone is not enough: near a swing limit a
+     * high loop gain makes Newton's steps tiny while the op-amp equation is still volts off.
+     */
     private boolean residualAcceptable() {
         for (int i = 0; i < nodeCount; i++) {
             if (!(Math.abs(f[i]) <= KCL_TOLERANCE_AMPS + RESIDUAL_RELATIVE_TOLERANCE * rowMagnitude[i])) {
+                return false;
+            }
+        }
+        for (int i = nodeCount; i < n; i++) {
+            if (!(Math.abs(f[i]) <= EQUATION_RESIDUAL_VOLTS)) {
                 return false;
             }
         }
