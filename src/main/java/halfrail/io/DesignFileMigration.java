@@ -24,9 +24,11 @@ final class DesignFileMigration {
 
     /** A copy of {@code root} (a file of {@code version}) in the current layout; the tree itself is left alone. */
     static ObjectNode toCurrent(ObjectNode root, int version, FieldReader.Context context) {
+        // Errors found while migrating name the file's own fields already: no path rewriting.
+        FieldReader.Context asWritten = new FieldReader.Context(context.source(), Function.identity(), context.note());
         ObjectNode tree = root.deepCopy();
         if (version == 0) {
-            tree = fromVersion0(tree, context);
+            tree = fromVersion0(tree, asWritten);
         }
         return tree;
     }
