@@ -52,7 +52,7 @@ public final class DesignFiles {
     public static final int FORMAT_VERSION = 1;
     /** Largest file read, bytes (1 MiB); for text handed to {@link #read(String, String)}, UTF-8 bytes. */
     public static final int MAX_FILE_BYTES = 1 << 20;
-    /** Deepest nesting of arrays and objects accepted (the format itself needs 5). */
+    /** Deepest nesting of arrays and objects accepted (the format itself needs 4). */
     public static final int MAX_NESTING_DEPTH = 32;
     /** Longest text value accepted, characters. */
     public static final int MAX_STRING_LENGTH = 100_000;
