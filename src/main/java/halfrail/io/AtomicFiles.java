@@ -54,7 +54,8 @@ final class AtomicFiles {
         String source = target.toString();
         Path folder = file.getParent();
         if (folder == null || !Files.isDirectory(folder)) {
-            throw DesignFiles.io(source, "cannot save: the folder " + folder + " does not exist", null);
+            throw DesignFiles.io(source, "cannot save: " + folder
+                    + (folder != null && Files.exists(folder) ? " is not a folder" : " does not exist"), null);
         }
         if (Files.isDirectory(file)) {
             throw DesignFiles.io(source, "cannot save: it is a folder", null);

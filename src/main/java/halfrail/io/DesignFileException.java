@@ -46,7 +46,7 @@ public final class DesignFileException extends RuntimeException {
 
     DesignFileException(Kind kind, String source, String jsonPath, String expected, int line, int column,
                         String detail, Throwable cause) {
-        super(message(source, jsonPath, line, column, detail), cause);
+        super(oneLine(message(source, jsonPath, line, column, detail)), cause);
         this.kind = Objects.requireNonNull(kind, "kind");
         this.source = source == null ? "" : source;
         this.jsonPath = jsonPath == null ? "" : jsonPath;
@@ -76,6 +76,20 @@ public final class DesignFileException extends RuntimeException {
             b.append(jsonPath).append(": ");
         }
         b.append(detail);
+        return b.toString();
+    }
+
+    /** The message with control characters (line breaks from a hostile file, say) written as escapes. */
+    private static String oneLine(String s) {
+        StringBuilder b = new StringBuilder(s.length());
+        for (int i = 0; i < s.length(); i++) {
+            char c = s.charAt(i);
+            if (c < 0x20 || c == 0x7F || c == '\u2028' || c == '\u2029') {
+                b.append(String.format("\\u%04X", (int) c));
+            } else {
+                b.append(c);
+            }
+        }
         return b.toString();
     }
 

@@ -3,10 +3,11 @@ package halfrail.io;
 import com.fasterxml.jackson.core.JacksonException;
 import com.fasterxml.jackson.core.JsonFactory;
 import com.fasterxml.jackson.core.JsonLocation;
-import com.fasterxml.jackson.core.JsonParseException;
+import com.fasterxml.jackson.core.JsonStreamContext;
 import com.fasterxml.jackson.core.StreamReadConstraints;
 import com.fasterxml.jackson.core.StreamReadFeature;
 import com.fasterxml.jackson.core.exc.StreamConstraintsException;
+import com.fasterxml.jackson.core.exc.StreamReadException;
 import com.fasterxml.jackson.core.util.DefaultIndenter;
 import com.fasterxml.jackson.core.util.DefaultPrettyPrinter;
 import com.fasterxml.jackson.core.util.Separators;
@@ -26,6 +27,8 @@ import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.nio.file.attribute.BasicFileAttributes;
+import java.util.ArrayDeque;
+import java.util.Deque;
 import java.util.function.Function;
 
 /**
@@ -161,6 +164,10 @@ public final class DesignFiles {
                     "the file holds no JSON; expected a design object", null);
         }
         FieldReader top = FieldReader.of(root, "$", plain);
+        if (!top.has("format")) {
+            throw plain.error(Kind.NOT_A_DESIGN, "$", "a field format: \"" + FORMAT_NAME + "\"",
+                    "not a Halfrail design file: it has no field 'format'");
+        }
         String format = top.string("format");
         if (!format.equals(FORMAT_NAME)) {
             throw plain.error(Kind.NOT_A_DESIGN, "$.format", FORMAT_NAME,
@@ -232,11 +239,25 @@ public final class DesignFiles {
                     + " deep, texts at most " + MAX_STRING_LENGTH + " and numbers at most " + MAX_NUMBER_LENGTH
                     + " characters", line, column, "beyond a limit of the format: " + detail, e);
         }
-        if (e instanceof JsonParseException && detail.startsWith("Duplicate field")) {
-            return new DesignFileException(Kind.DUPLICATE_FIELD, source, "", "each field once", line, column, detail, e);
+        if (e instanceof StreamReadException read && detail.startsWith("Duplicate field")) {
+            String path = read.getProcessor() == null ? "" : pathOf(read.getProcessor().getParsingContext());
+            return new DesignFileException(Kind.DUPLICATE_FIELD, source, path, "each field once", line, column, detail, e);
         }
         return new DesignFileException(Kind.SYNTAX, source, "", "JSON text", line, column,
                 "not valid JSON: " + detail, e);
+    }
+
+    /** The JSON path of the value a parser was reading, for example {@code $.load.ohms}. */
+    private static String pathOf(JsonStreamContext context) {
+        Deque<String> parts = new ArrayDeque<>();
+        for (JsonStreamContext c = context; c != null && !c.inRoot(); c = c.getParent()) {
+            if (c.inArray()) {
+                parts.push("[" + Math.max(0, c.getCurrentIndex()) + "]");
+            } else if (c.getCurrentName() != null) {
+                parts.push(FieldReader.child("", c.getCurrentName()));
+            }
+        }
+        return "$" + String.join("", parts);
     }
 
     private static String firstLine(String s) {

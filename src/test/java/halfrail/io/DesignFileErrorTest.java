@@ -90,6 +90,7 @@ class DesignFileErrorTest {
                 arguments("format version below 0", with(r, "/formatVersion", -1), Kind.BAD_VALUE, "$.formatVersion"),
                 // other files and other versions
                 arguments("another format", with(r, "/format", "some-other-format"), Kind.NOT_A_DESIGN, "$.format"),
+                arguments("no format at all", "{\"colour\": \"red\"}", Kind.NOT_A_DESIGN, "$"),
                 arguments("a newer version", with(r, "/formatVersion", 2), Kind.NEWER_VERSION, "$.formatVersion"));
     }
 
@@ -151,6 +152,14 @@ class DesignFileErrorTest {
         DesignFileException e = refused(json);
         assertEquals(Kind.DUPLICATE_FIELD, e.kind(), e::getMessage);
         assertTrue(e.line() > 0, e::getMessage);
+        assertEquals("$.load.ohms", e.jsonPath(), e::getMessage);
+    }
+
+    @Test
+    void aLineBreakInAFieldNameDoesNotBreakTheMessage() {
+        DesignFileException e = refused(with(rich(), "/load/two\nlines", 1));
+        assertEquals(Kind.UNKNOWN_FIELD, e.kind());
+        assertTrue(e.getMessage().contains("two\\u000Alines"), e.getMessage());
     }
 
     @Test

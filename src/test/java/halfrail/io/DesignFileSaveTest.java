@@ -112,6 +112,7 @@ class DesignFileSaveTest {
         DesignFileException e = assertThrows(DesignFileException.class, () -> DesignFiles.save(boost(), file));
         assertEquals(Kind.IO, e.kind());
         assertTrue(e.getMessage().startsWith(file.toString()), e.getMessage());
+        assertTrue(e.getMessage().endsWith("is not a folder"), e.getMessage());
     }
 
     @Test
