@@ -30,7 +30,7 @@ final class AtomicFiles {
         void write(FileChannel channel, byte[] bytes) throws IOException;
     }
 
-    /** Writes every byte. */
+    /** Writes every byte (a blocking file channel writes at least one byte per call or throws). */
     static final ChannelWriter WHOLE = (channel, bytes) -> {
         ByteBuffer buffer = ByteBuffer.wrap(bytes);
         while (buffer.hasRemaining()) {

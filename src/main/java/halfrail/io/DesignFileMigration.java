@@ -4,7 +4,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import halfrail.io.DesignFileException.Kind;
 
-import java.util.Iterator;
 import java.util.Map;
 import java.util.function.Function;
 
@@ -61,9 +60,7 @@ final class DesignFileMigration {
     /** A copy of {@code node} with field {@code from} renamed {@code to}, in the same place. */
     private static ObjectNode renamed(ObjectNode node, String from, String to) {
         ObjectNode out = node.objectNode();
-        Iterator<Map.Entry<String, JsonNode>> fields = node.fields();
-        while (fields.hasNext()) {
-            Map.Entry<String, JsonNode> f = fields.next();
+        for (Map.Entry<String, JsonNode> f : node.properties()) {
             out.set(f.getKey().equals(from) ? to : f.getKey(), f.getValue());
         }
         return out;

@@ -37,6 +37,9 @@ enum Quantity {
     /** A time in hours; text may end in h. */
     HOURS(null, "a time in hours (a number, or text such as 100 h)", new Suffix("h", 1, 1));
 
+    /** The most significant digits tried when writing a value; 17 always reproduce a double. */
+    static final int MAX_FORMAT_DIGITS = 17;
+
     /** A unit word that may end a value's text; the value read is multiplied and divided by these. */
     record Suffix(String text, double multiplier, double divisor) {}
 
@@ -79,13 +82,13 @@ enum Quantity {
     /**
      * The text written for {@code value}: the shortest engineering text that reads back as exactly
      * {@code value}, or null when the value is better written as a JSON number (a quantity with
-     * no unit symbol, or a value no text of up to 17 digits reproduces).
+     * no unit symbol, or a value no text of up to {@value #MAX_FORMAT_DIGITS} digits reproduces).
      */
     String format(double value) {
         if (unit == null || !Double.isFinite(value)) {
             return null;
         }
-        for (int digits = 1; digits <= 17; digits++) {
+        for (int digits = 1; digits <= MAX_FORMAT_DIGITS; digits++) {
             String text = EngineeringValue.format(value, unit, digits);
             try {
                 if (Double.compare(EngineeringValue.parse(text, unit), value) == 0) {
