@@ -1,6 +1,9 @@
 package halfrail.io;
 
 import halfrail.design.Design;
+import halfrail.design.ReferenceKind;
+import halfrail.design.StageKind;
+import net.jqwik.api.statistics.Statistics;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
@@ -38,6 +41,26 @@ class DesignFileRoundTripTest {
     void everyRandomValidDesignReadsBackEqual(@ForAll("designs") Design d) {
         String written = DesignFiles.write(d);
         assertEquals(d, DesignFiles.read(written, "random"), written);
+        Statistics.label("reference").collect(d.reference().kind());
+        Statistics.label("supply").collect(d.supply().getClass().getSimpleName());
+        Statistics.label("custom op-amp").collect(d.stages().stream().anyMatch(s -> s.opAmp().customParams().isPresent()));
+        for (StageKind k : StageKind.values()) {
+            Statistics.label(k.name()).collect(d.stages().stream().anyMatch(s -> s.kind() == k));
+        }
+        Statistics.label("reference").coverage(c -> {
+            for (ReferenceKind k : ReferenceKind.values()) {
+                c.check(k).count(n -> n > 0);
+            }
+        });
+        Statistics.label("supply").coverage(c -> {
+            c.check("CellPack").count(n -> n > 0);
+            c.check("FixedRail").count(n -> n > 0);
+            c.check("UsbPort").count(n -> n > 0);
+        });
+        Statistics.label("custom op-amp").coverage(c -> c.check(true).count(n -> n > 0));
+        for (StageKind k : StageKind.values()) {
+            Statistics.label(k.name()).coverage(c -> c.check(true).count(n -> n > 0));
+        }
     }
 
     @Provide
