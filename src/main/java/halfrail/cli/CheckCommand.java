@@ -2,6 +2,15 @@ package halfrail.cli;
 
 import halfrail.circuit.Circuit;
 import halfrail.check.CircuitAnalysis;
+import halfrail.check.DesignAnalysis;
+import halfrail.check.DesignReport;
+import halfrail.check.StageReport;
+import halfrail.check.SwingReport;
+import halfrail.design.Design;
+import halfrail.design.DesignCircuits;
+import halfrail.design.DesignException;
+import halfrail.io.DesignFileException;
+import halfrail.io.DesignFiles;
 import halfrail.check.CircuitReport;
 import halfrail.check.Severity;
 import halfrail.circuit.VoltageSource;
@@ -33,13 +42,17 @@ import java.util.concurrent.Callable;
  * point and reports nodes, op-amps and findings. Exit code per {@link ExitCodes}.
  */
 @Command(name = "check", mixinStandardHelpOptions = true,
-        description = "Check netlists (*.cir, *.net, *.sp): operating point, floating nodes, op-amps at rest, lower corner, settle-up time.",
+        description = {"Check design files (*.json) and netlists (*.cir, *.net, *.sp): operating point, floating nodes,",
+                "op-amps at rest, lower corner, settle-up time and findings.",
+                "The netlist options (--input, --output, --ramp, --settle-band, --watch) apply to netlists only."},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {"0:nothing at or above the --fail-on severity", "1:a finding at or above it",
                 "2:bad input (unreadable file, parse error, invalid option)", "3:internal error"})
 public final class CheckCommand implements Callable<Integer> {
     /** File name endings read as netlists when a directory is given. */
     public static final List<String> NETLIST_ENDINGS = List.of(".cir", ".net", ".sp");
+    /** File name ending read as a Halfrail design file. */
+    public static final String DESIGN_ENDING = ".json";
     /** Largest number of nodes {@code check} solves; the dense solver is meant for stage-sized circuits. */
     public static final int MAX_NODES = 500;
     /** Default power-on ramp of every DC voltage source, s. */
@@ -48,7 +61,7 @@ public final class CheckCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Parameters(arity = "1..*", paramLabel = "FILE|DIR", description = "Netlist files, or directories of them.")
+    @Parameters(arity = "1..*", paramLabel = "FILE|DIR", description = "Design files and netlists, or directories of them.")
     List<Path> paths = new ArrayList<>();
 
     @Option(names = "--format", paramLabel = "FORMAT", description = "text, json or markdown (default: ${DEFAULT-VALUE}).")
@@ -91,7 +104,8 @@ public final class CheckCommand implements Callable<Integer> {
                 List<Path> found = netlistsIn(p);
                 if (found.isEmpty()) {
                     outcomes.add(new Outcome(p.toString(), null,
-                            p + ": no netlist files (" + String.join(", ", NETLIST_ENDINGS) + ") in this directory"));
+                            p + ": no design files (" + DESIGN_ENDING + ") or netlists (" + String.join(", ", NETLIST_ENDINGS)
+                                    + ") in this directory"));
                 }
                 files.addAll(found);
             } else {
@@ -148,7 +162,8 @@ public final class CheckCommand implements Callable<Integer> {
         try (DirectoryStream<Path> s = Files.newDirectoryStream(dir)) {
             for (Path p : s) {
                 String name = p.getFileName().toString().toLowerCase(Locale.ROOT);
-                if (Files.isRegularFile(p) && NETLIST_ENDINGS.stream().anyMatch(name::endsWith)) {
+                if (Files.isRegularFile(p) && (name.endsWith(DESIGN_ENDING)
+                        || NETLIST_ENDINGS.stream().anyMatch(name::endsWith))) {
                     found.add(p);
                 }
             }
@@ -159,11 +174,51 @@ public final class CheckCommand implements Callable<Integer> {
         return found;
     }
 
+    /** Whether {@code file} is read as a design file rather than a netlist (by its name). */
+    static boolean isDesignFile(Path file) {
+        return file.getFileName() != null
+                && file.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(DESIGN_ENDING);
+    }
+
+    /** Read and analyse one design file; the netlist options do not apply to designs. */
+    static FileReport analyseDesign(Path file) {
+        String name = file.toString();
+        Design design = readDesign(file);
+        DesignReport r;
+        try {
+            r = DesignAnalysis.analyse(design);
+        } catch (DesignException e) {
+            throw new BadInputException(name + ": " + e.getMessage());
+        }
+        List<OpAmpRow> rows = new ArrayList<>();
+        for (StageReport s : r.stages()) {
+            SwingReport n = s.nominal();
+            rows.add(new OpAmpRow(s.label(), n.quiescentVolts(), s.inPlusVolts(), s.inMinusVolts(), n.swingLowVolts(),
+                    n.swingHighVolts(), s.commonModeLowVolts(), s.commonModeHighVolts(), n.saturated(),
+                    s.commonModeOkAtRest()));
+        }
+        Double corner = r.chain().map(c -> boxed(c.lowerCornerHz())).orElse(null);
+        Double settle = r.powerOn().map(p -> boxed(p.settleSeconds())).orElse(null);
+        String load = DesignCircuits.nominal(design).loadNode();
+        return new FileReport(name, design.name(), Optional.of(load), r.nodeVolts(), rows, r.floatingNodes(), corner,
+                settle, r.findings(), List.of());
+    }
+
+    /** Read a design file; its problems are bad input naming the file and JSON path. */
+    static Design readDesign(Path file) {
+        try {
+            return DesignFiles.read(file);
+        } catch (DesignFileException e) {
+            throw new BadInputException(e.getMessage().startsWith(file.toString()) ? e.getMessage()
+                    : file + ": " + e.getMessage());
+        }
+    }
+
     /** Read, validate against the options, solve and judge one netlist. */
     FileReport analyse(Path file) {
         String name = file.toString();
-        if (name.toLowerCase(Locale.ROOT).endsWith(".json")) {
-            throw new BadInputException(name + ": design files (.json) are not read by this version; give a netlist");
+        if (isDesignFile(file)) {
+            return analyseDesign(file);
         }
         Netlist netlist;
         try {
