@@ -136,7 +136,6 @@ public final class DesignAnalysis {
 
             List<StageReport> stages = new ArrayList<>();
             List<Ladder> ladders = new ArrayList<>();
-            String previousOut = "src";
             for (StageNodes sn : nominal.opAmps()) {
                 OpAmpState st = op.opAmp(sn.opAmp()).orElseThrow();
                 OpAmpState stLow = low.opAmp(sn.opAmp()).orElseThrow();
@@ -149,10 +148,11 @@ public final class DesignAnalysis {
                 double centre = Math.sqrt(bandLow * bandHigh);
                 double stageGain;
                 if (sn.signal()) {
-                    double before = ac.response(sig, previousOut, centre).magnitude();
+                    // The stage's own gain: its output over the signal at its own input node, so that
+                    // a saturated stage before it (which passes almost nothing) does not inflate it.
+                    double before = ac.response(sig, sn.input(), centre).magnitude();
                     double after = ac.response(sig, sn.out(), centre).magnitude();
                     stageGain = before > 0 ? after / before : 0;
-                    previousOut = sn.out();
                 } else {
                     stageGain = 0;
                 }

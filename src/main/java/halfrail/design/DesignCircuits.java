@@ -125,7 +125,7 @@ public final class DesignCircuits {
             OpAmpParams p = params(r.buffer(), "reference.buffer");
             b.opAmp("UREF", "ref", "refb", SUPPLY_NODE, Circuit.GROUND, "refb", p);
             paths.put("UREF", "reference.buffer");
-            opAmps.add(new StageNodes("reference buffer", "reference.buffer", "UREF", "ref", "refb", "refb", false));
+            opAmps.add(new StageNodes("reference buffer", "reference.buffer", "UREF", "ref", "refb", "refb", false, "ref"));
             add(new Resistor("RISO", "refb", "refx", r.isolationOhms()), "reference.isolationOhms");
             capacitor("CREFB", "refx", Circuit.GROUND, r.bufferDecoupling(), "reference.bufferDecoupling");
             return "refx";
@@ -141,6 +141,7 @@ public final class DesignCircuits {
             String u = "U" + n;
             Reference r = design.reference();
             boolean direct = r.kind() == ReferenceKind.DIVIDER_DIRECT;
+            String input;
             switch (s.kind()) {
                 case NON_INVERTING, FOLLOWER -> {
                     if (s.inputCapacitor() != null) {
@@ -153,6 +154,7 @@ public final class DesignCircuits {
                     } else {
                         p = previous;
                     }
+                    input = p;
                     if (s.kind() == StageKind.FOLLOWER) {
                         m = out;
                     } else {
@@ -173,6 +175,7 @@ public final class DesignCircuits {
                         add(new Resistor("RBIAS" + n, ref, p, r.biasOhms()), "reference.biasOhms");
                     }
                     String x = previous;
+                    input = previous;
                     if (s.inputCapacitor() != null) {
                         x = "s" + n + ".x";
                         capacitor("CIN" + n, x, previous, s.inputCapacitor(), path + ".inputCapacitor");
@@ -184,7 +187,7 @@ public final class DesignCircuits {
             }
             b.opAmp(u, p, m, SUPPLY_NODE, Circuit.GROUND, out, params(s.opAmp(), path + ".opAmp"));
             paths.put(u, path + ".opAmp");
-            opAmps.add(new StageNodes(s.name(), path, u, p, m, out, true));
+            opAmps.add(new StageNodes(s.name(), path, u, p, m, out, true, input));
             return out;
         }
 

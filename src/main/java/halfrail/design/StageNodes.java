@@ -10,7 +10,9 @@ package halfrail.design;
  * @param inMinus    node of the inverting input
  * @param out        node of the output
  * @param signal     whether the stage carries the signal (false for the reference buffer)
+ * @param input      node where the stage's signal arrives: the non-inverting input of a
+ *                   non-inverting stage or follower, the far end of R1 of an inverting stage
  */
 public record StageNodes(String label, String designPath, String opAmp, String inPlus, String inMinus, String out,
-                         boolean signal) {
+                         boolean signal, String input) {
 }
