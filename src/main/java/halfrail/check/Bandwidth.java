@@ -43,9 +43,9 @@ final class Bandwidth implements DesignCheck {
                             + Text.hertz(ch.bandHighHz()) + " × 3 each) or spread the gain over more stages"));
         }
         for (StageReport s : e.stages()) {
-            if (s.signal() && s.fullPowerHz() < ch.bandHighHz()) {
+            if (s.signal() && s.fullPowerHz().isPresent() && s.fullPowerHz().getAsDouble() < ch.bandHighHz()) {
                 out.add(Finding.at(SLEW, Severity.WARN, s.label() + ": at " + Text.volts(s.nominal().signalPeakVolts())
-                                + " peak the slew rate limits the output to " + Text.hertz(s.fullPowerHz())
+                                + " peak the slew rate limits the output to " + Text.hertz(s.fullPowerHz().getAsDouble())
                                 + ", below the band's high end " + Text.hertz(ch.bandHighHz()),
                         List.of(s.designPath() + ".opAmp"), "choose an op-amp with a slew rate of at least "
                                 + String.format(java.util.Locale.ROOT, "%.2g V/µs",

@@ -171,8 +171,9 @@ public final class DesignAnalysis {
                 Map<String, Double> byCap = new LinkedHashMap<>();
                 oneLeaking.forEach((name, o) -> byCap.put(name, o.voltage(sn.out()) - outNoLeak));
                 double biasShift = op.voltage(sn.inPlus()) - noBias.voltage(sn.inPlus());
-                double fullPower = signalPeak > 0 ? p.slewRateVoltsPerSecond() / (2 * Math.PI * signalPeak)
-                        : Double.POSITIVE_INFINITY;
+                OptionalDouble fullPower = signalPeak > 0
+                        ? OptionalDouble.of(p.slewRateVoltsPerSecond() / (2 * Math.PI * signalPeak))
+                        : OptionalDouble.empty();
                 boolean supplyOk = supply.lowVolts() >= p.supplyMinVolts() && supply.highVolts() <= p.supplyMaxVolts();
                 boolean cmPeaks = st.inPlusVolts() - inputPeak >= st.commonModeLowVolts()
                         && st.inPlusVolts() + inputPeak <= st.commonModeHighVolts();
