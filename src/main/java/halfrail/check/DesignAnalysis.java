@@ -198,7 +198,7 @@ public final class DesignAnalysis {
                 double worst = Math.max(Math.abs(dc), Math.max(Math.abs(dcLow), Math.abs(dcHigh))) + sigPeak;
                 double override = design.thresholds().capacitorDeratingOverride();
                 double derated = override > 0 ? override * c.ratedVolts() : tech.deratedVolts(c.ratedVolts());
-                double seen = linear.resistanceBetween(c.plus(), c.minus());
+                double seen = seenOhms(c, guess, Math.sqrt(bandLow * bandHigh));
                 double corner = 1 / (2 * Math.PI * seen * c.farads());
                 double leak = tech.leakageAmps(c.farads(), c.ratedVolts(), Math.abs(dc), LeakageLevel.LIMIT);
                 capacitors.add(new CapacitorReport(c.name(), nominal.designPath(c.name()), tech.id(), c.farads(), dc,
@@ -222,6 +222,22 @@ public final class DesignAnalysis {
             }
             return new DesignReport(design, Optional.empty(), "", List.of(), op.nodeVolts(), withCodes, capacitors,
                     Optional.of(chain), powerOn, Optional.of(battery), ladders, findings);
+        }
+
+        /**
+         * The resistance capacitor {@code c} sees at {@code hz} (the middle of the band), Ω: the
+         * magnitude of the impedance between its terminals with the capacitor itself taken out,
+         * every source held, and every other capacitor at its impedance there — coupling and
+         * decoupling capacitors all but short. This is the resistance of the short-circuit
+         * time-constant method for low-frequency corners (Sedra and Smith, Microelectronic
+         * Circuits, low-frequency response of amplifiers — from memory); the DC resistance would
+         * count, say, the divider behind a decoupled reference that the band never sees.
+         */
+        private double seenOhms(Capacitor c, double[] guess, double hz) {
+            String probe = "IPROBE_" + c.name();
+            Circuit without = nominal.circuit().replace(c.name(), e -> new CurrentSource(probe, c.plus(), c.minus(), 0));
+            AcAnalysis probeAc = new AcAnalysis(solve(without, guess));
+            return probeAc.response(probe, c.plus(), c.minus(), hz).magnitude();
         }
 
         private ChainReport chain(AcAnalysis ac) {

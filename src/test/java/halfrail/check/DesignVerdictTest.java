@@ -14,8 +14,8 @@ class DesignVerdictTest {
         assertTrue(r.failure().isEmpty(), r.failureMessage());
         assertFalse(r.has(Severity.FAIL), () -> "unexpected: " + r.findings());
         StageReport s = r.stages().get(0);
-        // Equal divider on the nominal 9 V block: mid-rail 4.5 V; bias gain 1 (blocking capacitor in the leg).
-        assertEquals(4.5, s.outputVolts(), 0.05);
+        // 150k/100k divider on the nominal 9 V block: 9 V × 100/250 = 3.6 V; bias gain 1 (blocking capacitor in the leg).
+        assertEquals(3.6, s.outputVolts(), 0.05);
         assertEquals(1.0, s.biasGain(), 1e-3);
         // Signal gain 1 + R2/R1 = 11 (any op-amp text).
         assertEquals(11.0, s.stageGain(), 0.05);
