@@ -66,8 +66,9 @@ class FindingCatalogueTest {
         return d.withSource(new SignalSource(voltsPeak, AmplitudeUnit.VOLTS_PEAK, 1e3, 20, 20e3));
     }
 
-    /** The one finding with {@code code}; fails when there is none. */
+    /** The one finding with {@code code}; fails when there is none, or when the report holds a non-finite number. */
     static Finding only(DesignReport r, String code) {
+        ReportAssertions.assertAllFinite(r);
         List<Finding> found = r.findings(code);
         assertEquals(1, found.size(), () -> code + " expected once, findings: " + r.findings());
         return found.get(0);
@@ -463,6 +464,14 @@ class FindingCatalogueTest {
         assertTrue(r.nodeVolts().isEmpty());
         assertTrue(r.chain().isEmpty() && r.powerOn().isEmpty() && r.battery().isEmpty() && r.ladders().isEmpty());
         assertEquals(1, r.findings().size());
+    }
+
+    @Test
+    void anInvalidDesignIsPassedOnAsTheTypedErrorNamingTheField() {
+        Design d = h().withSupply(new CellPack("unobtainium", 1));
+        halfrail.design.DesignException e = org.junit.jupiter.api.Assertions.assertThrows(
+                halfrail.design.DesignException.class, () -> DesignAnalysis.analyse(d));
+        assertEquals("supply.chemistry", e.path());
     }
 
     @Test
