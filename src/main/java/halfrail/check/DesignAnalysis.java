@@ -249,6 +249,8 @@ public final class DesignAnalysis {
             double rippleGain = 0;
             double ripple = 0;
             if (supply.rippleVoltsPeak() > 0) {
+                // AcAnalysis answers per unit of the named source whatever its AC magnitude (0 for
+                // the supply), so this is the supply-to-load transfer; scaled by the ripple below.
                 rippleGain = ac.response(nominal.supplySource(), nominal.loadNode(), supply.rippleHz()).magnitude();
                 ripple = rippleGain * supply.rippleVoltsPeak();
             }

@@ -393,6 +393,18 @@ class FindingCatalogueTest {
     }
 
     @Test
+    void aDcCoupledLoadRisesWithTheOutputAndTheStepNamesTheLoad() {
+        DesignReport r = DesignAnalysis.analyse(h().withLoad(new Load(10e3, 0, null)));
+        Finding f = only(r, PowerOn.STEP);
+        assertEquals(List.of("load"), f.parts());
+        // The load starts at 0 V and ends at the rest point, 9 V × 0.4 = 3.6 V.
+        double step = r.powerOn().orElseThrow().loadStepVolts();
+        assertEquals(r.stages().get(0).outputVolts(), step, 0.01);
+        assertEquals(3.6, step, 0.05);
+        assertCarries(f, Text.volts(step));
+    }
+
+    @Test
     void aFeedbackResistorAbove100kIsAgainstCommonPractice() {
         DesignReport r = DesignAnalysis.analyse(withStage0(s0().withFeedbackOhms(220e3).withLegOhms(22e3)), false);
         Finding f = only(r, CommonPractice.FEEDBACK);
