@@ -47,6 +47,8 @@ import java.util.OptionalDouble;
  * exceptions; an invalid design (a {@link halfrail.design.DesignException}) is thrown, naming the field.
  */
 public final class DesignAnalysis {
+    /** Code of the finding that stands for an engine failure; the report then holds no numbers. */
+    public static final String ANALYSIS_FAILED = "ANALYSIS_FAILED";
     /** Absolute temperature for thermal-noise figures, K (stated with every noise number). */
     public static final double NOISE_TEMPERATURE_KELVIN = 300;
     /** Boltzmann constant, J/K (SI 2019 exact value). */
@@ -79,6 +81,7 @@ public final class DesignAnalysis {
             for (String node : floating) {
                 findings.add(NoDcPath.finding(nominal, node));
             }
+            findings.addAll(SupplyAndRuntime.beforeSolve(design.supply(), nominal));
             return new DesignReport(design, Optional.of(AnalysisException.Kind.FLOATING_NODE),
                     "no DC path at " + String.join(", ", floating), floating, Map.of(), List.of(), List.of(),
                     Optional.empty(), Optional.empty(), Optional.empty(), List.of(), findings);
@@ -86,11 +89,14 @@ public final class DesignAnalysis {
         try {
             return new Workup(design, nominal, withPowerOn).report();
         } catch (AnalysisException e) {
-            Finding f = Finding.of("ANALYSIS_FAILED", Severity.FAIL,
+            List<Finding> findings = new ArrayList<>();
+            findings.add(Finding.of(ANALYSIS_FAILED, Severity.FAIL,
                     "the circuit could not be solved (" + e.kind() + "): " + e.getMessage(),
-                    List.of(), "check for values far outside the usual range, or simplify the circuit to find the cause");
+                    List.of(), "check for an op-amp outside its supply range or values far outside the usual range, "
+                            + "or simplify the circuit to find the cause"));
+            findings.addAll(SupplyAndRuntime.beforeSolve(design.supply(), nominal));
             return new DesignReport(design, Optional.of(e.kind()), e.getMessage(), List.of(), Map.of(), List.of(),
-                    List.of(), Optional.empty(), Optional.empty(), Optional.empty(), List.of(), List.of(f));
+                    List.of(), Optional.empty(), Optional.empty(), Optional.empty(), List.of(), findings);
         }
     }
 
@@ -174,7 +180,7 @@ public final class DesignAnalysis {
                 OptionalDouble fullPower = signalPeak > 0
                         ? OptionalDouble.of(p.slewRateVoltsPerSecond() / (2 * Math.PI * signalPeak))
                         : OptionalDouble.empty();
-                boolean supplyOk = supply.lowVolts() >= p.supplyMinVolts() && supply.highVolts() <= p.supplyMaxVolts();
+                boolean supplyOk = SupplyAndRuntime.inRange(supply, p);
                 boolean cmPeaks = st.inPlusVolts() - inputPeak >= st.commonModeLowVolts()
                         && st.inPlusVolts() + inputPeak <= st.commonModeHighVolts();
                 stages.add(new StageReport(sn.label(), sn.designPath(), sn.opAmp(), sn.signal(), st.inPlusVolts(),

@@ -469,13 +469,28 @@ class FindingCatalogueTest {
         // A load of 1e-300 Ω makes the system matrix singular.
         DesignReport r = DesignAnalysis.analyse(h().withLoad(new Load(1e-300, 0, null)));
         assertEquals(java.util.Optional.of(AnalysisException.Kind.SINGULAR), r.failure());
-        Finding f = only(r, "ANALYSIS_FAILED");
+        Finding f = only(r, DesignAnalysis.ANALYSIS_FAILED);
         assertEquals(Severity.FAIL, f.severity());
         assertTrue(r.stages().isEmpty());
         assertTrue(r.capacitors().isEmpty());
         assertTrue(r.nodeVolts().isEmpty());
         assertTrue(r.chain().isEmpty() && r.powerOn().isEmpty() && r.battery().isEmpty() && r.ladders().isEmpty());
-        assertEquals(1, r.findings().size());
+        assertEquals(1, r.findings().size(), "the part is within its supply range: nothing else to say");
+    }
+
+    @Test
+    void whenTheCircuitCannotBeSolvedTheSupplyRangeIsStillCheckedFromTheParameters() {
+        // A JFET-input part (specified from 7 V) on one NiMH cell of 1.0–1.4 V, in a circuit made
+        // unsolvable by a 1e-300 Ω load: the range finding needs no solution and is still given.
+        Design d = h().withSupply(new CellPack("nimh-aa", 1)).withLoad(new Load(1e-300, 0, null))
+                .withStage(0, s0().withOpAmp(OpAmpChoice.archetype(OpAmpArchetype.JFET_INPUT_AUDIO)));
+        DesignReport r = DesignAnalysis.analyse(d);
+        assertTrue(r.failure().isPresent(), r.findings()::toString);
+        assertEquals(Severity.FAIL, only(r, DesignAnalysis.ANALYSIS_FAILED).severity());
+        Finding range = only(r, SupplyAndRuntime.RANGE);
+        assertEquals(List.of("stages[0].opAmp", "supply"), range.parts());
+        assertCarries(range, Text.volts(1.0), Text.volts(1.4));
+        assertTrue(r.stages().isEmpty() && r.capacitors().isEmpty());
     }
 
     @Test
