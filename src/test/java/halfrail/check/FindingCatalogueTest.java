@@ -494,6 +494,23 @@ class FindingCatalogueTest {
     }
 
     @Test
+    void aSupplyBelowThePartsHeadroomsIsNotDescribedByAnInvertedWindow() {
+        // JFET-input part on one NiMH cell (1.2 V nominal): output headrooms 2.0 V + 1.5 V and input
+        // headrooms 3.5 V + 0.5 V (archetype figures) leave no window and no input range.
+        Design d = h().withSupply(new CellPack("nimh-aa", 1))
+                .withStage(0, s0().withOpAmp(OpAmpChoice.archetype(OpAmpArchetype.JFET_INPUT_AUDIO)));
+        DesignReport r = DesignAnalysis.analyse(d, false);
+        StageReport s = r.stages().get(0);
+        assertTrue(s.nominal().swingHighVolts() < s.nominal().swingLowVolts());
+        Finding rail = only(r, RestsOnRail.CODE);
+        assertCarries(rail, Text.volts(1.2));
+        assertFalse(rail.message().contains(Text.volts(s.nominal().swingHighVolts())), rail.message());
+        Finding cm = only(r, CommonMode.CODE);
+        assertCarries(cm, Text.volts(s.commonModeLowVolts()), Text.volts(s.commonModeHighVolts()));
+        assertFalse(only(r, SupplyAndRuntime.RANGE).parts().isEmpty());
+    }
+
+    @Test
     void anInvalidDesignIsPassedOnAsTheTypedErrorNamingTheField() {
         Design d = h().withSupply(new CellPack("unobtainium", 1));
         halfrail.design.DesignException e = org.junit.jupiter.api.Assertions.assertThrows(
