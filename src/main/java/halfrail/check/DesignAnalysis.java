@@ -44,11 +44,17 @@ import java.util.OptionalDouble;
  * <p>Everything numeric comes from the engine: DC operating points at the nominal, lowest and
  * highest supply and at three leakage levels, small-signal responses at the nominal operating
  * point, and a power-on transient. Analysis failures of the engine become findings, never
- * exceptions; an invalid design (a {@link halfrail.design.DesignException}) is thrown, naming the field.
+ * exceptions (a failed power-on transient costs only the power-on figures); an invalid design
+ * (a {@link halfrail.design.DesignException}) is thrown, naming the field.
  */
 public final class DesignAnalysis {
     /** Code of the finding that stands for an engine failure; the report then holds no numbers. */
     public static final String ANALYSIS_FAILED = "ANALYSIS_FAILED";
+    /**
+     * Code of the finding that says the power-on transient failed; the report then has no
+     * power-on figures but keeps every DC and AC result.
+     */
+    public static final String POWER_ON_FAILED = "POWER_ON_FAILED";
     /** Absolute temperature for thermal-noise figures, K (stated with every noise number). */
     public static final double NOISE_TEMPERATURE_KELVIN = 300;
     /** Boltzmann constant, J/K (SI 2019 exact value). */
@@ -213,12 +219,28 @@ public final class DesignAnalysis {
 
             ChainReport chain = chain(ac);
             BatteryReport battery = battery(op);
-            Optional<PowerOnReport> powerOn = withPowerOn ? Optional.of(powerOn(op)) : Optional.empty();
+            Optional<PowerOnReport> powerOn = Optional.empty();
+            AnalysisException powerOnFailure = null;
+            if (withPowerOn) {
+                try {
+                    powerOn = Optional.of(powerOn(op));
+                } catch (AnalysisException e) {
+                    // The DC and AC results stand; only the power-on figures are missing.
+                    powerOnFailure = e;
+                }
+            }
 
             Evidence evidence = new Evidence(design, nominal, stages, capacitors, chain, powerOn, battery);
             List<Finding> findings = new ArrayList<>();
             for (DesignCheck check : Checks.ALL) {
                 check.inspect(evidence, findings);
+            }
+            if (powerOnFailure != null) {
+                findings.add(Finding.of(POWER_ON_FAILED, Severity.WARN, "the power-on transient could not be computed ("
+                                + powerOnFailure.kind() + "): " + powerOnFailure.getMessage()
+                                + "; the settle-up, start-rail and start-step checks were not made",
+                        List.of("thresholds.maxSettleSeconds", "powerOnRampSeconds"),
+                        "check the settle-time limit and the supply ramp for values far outside the usual range"));
             }
             List<StageReport> withCodes = new ArrayList<>();
             for (StageReport s : stages) {

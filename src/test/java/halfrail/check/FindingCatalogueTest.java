@@ -479,6 +479,27 @@ class FindingCatalogueTest {
     }
 
     @Test
+    void aFailedPowerOnTransientCostsOnlyThePowerOnFigures() {
+        // A settle limit of 1e-30 s with a step supply asks the transient for steps below its minimum.
+        Thresholds t = Thresholds.defaults();
+        Thresholds absurd = new Thresholds(t.settleBandFraction(), 1e-30, t.minHeadroomDb(), t.offCentreDb(),
+                t.nearRailFraction(), t.maxLeakageDriftVolts(), t.maxRippleVolts(), t.maxBiasShiftVolts(),
+                t.maxStepVolts(), t.maxStageGain(), t.maxFeedbackOhms(), 0, 0);
+        Design base = h();
+        Design d = new Design("absurd", "", base.supply(), base.reference(), base.stages(), base.source(), base.load(),
+                absurd, 0);
+        DesignReport r = DesignAnalysis.analyse(d);
+        assertTrue(r.failure().isEmpty(), r.failureMessage());
+        assertTrue(r.powerOn().isEmpty());
+        Finding f = only(r, DesignAnalysis.POWER_ON_FAILED);
+        assertEquals(Severity.WARN, f.severity());
+        assertTrue(f.message().contains("STEP_TOO_SMALL"), f.message());
+        // Everything else is there, as for the healthy design.
+        assertEquals(healthy.stages().get(0).outputVolts(), r.stages().get(0).outputVolts(), 1e-9);
+        assertEquals(healthy.capacitors().size(), r.capacitors().size());
+    }
+
+    @Test
     void whenTheCircuitCannotBeSolvedTheSupplyRangeIsStillCheckedFromTheParameters() {
         // A JFET-input part (specified from 7 V) on one NiMH cell of 1.0–1.4 V, in a circuit made
         // unsolvable by a 1e-300 Ω load: the range finding needs no solution and is still given.
