@@ -12,14 +12,15 @@ final class BiasShift implements DesignCheck {
     public void inspect(Evidence e, List<Finding> out) {
         double limit = e.thresholds().maxBiasShiftVolts();
         // The bias current flows through the bias resistor, or straight through the divider when there is none.
-        String through = e.design().reference().kind() == ReferenceKind.DIVIDER_DIRECT
-                ? "reference.lowerOhms" : "reference.biasOhms";
+        List<String> through = e.design().reference().kind() == ReferenceKind.DIVIDER_DIRECT
+                ? List.of("reference.upperOhms", "reference.lowerOhms") : List.of("reference.biasOhms");
         for (StageReport s : e.stages()) {
             if (Math.abs(s.biasCurrentShiftVolts()) > limit) {
                 out.add(Finding.at(CODE, Severity.WARN, s.label() + ": the op-amps' input bias currents move the "
                                 + "non-inverting input by " + Text.volts(s.biasCurrentShiftVolts()) + " (limit "
                                 + Text.volts(limit) + ")",
-                        List.of(through, s.designPath() + ".opAmp"),
+                        java.util.stream.Stream.concat(through.stream(), java.util.stream.Stream.of(s.designPath() + ".opAmp"))
+                                .toList(),
                         "lower the bias resistance (and the divider) or choose an op-amp with lower bias current",
                         s.label(), LadderLevel.MID_RAIL));
             }

@@ -46,4 +46,37 @@ class DesignVerdictTest {
         assertTrue(f.parts().contains("stages[0].inputCapacitor"), f.parts().toString());
         assertTrue(r.stages().isEmpty(), "no numbers are shown for a circuit that cannot be solved");
     }
+
+    @Test
+    void theHealthyLadderIsOrderedFromGroundToTheSupplyAndDoesNotClip() {
+        DesignReport r = DesignAnalysis.analyse(TestDesigns.healthyNineVolt(), false);
+        Ladder l = r.ladders().get(0);
+        StageReport s = r.stages().get(0);
+        assertEquals("boost", l.opAmp());
+        assertEquals(9.0, l.supplyVolts(), 1e-12);
+        // 9 V block end-point: 6 × 0.9 V (IEC 60086-2 via secondary sources).
+        assertEquals(5.4, l.endPointSupplyVolts(), 1e-12);
+        double[] upwards = {0, l.swingLowVolts(), l.envelopeLowVolts(), l.quiescentVolts(), l.envelopeHighVolts(),
+                l.swingHighVolts(), l.supplyVolts()};
+        for (int i = 1; i < upwards.length; i++) {
+            assertTrue(upwards[i] > upwards[i - 1], () -> java.util.Arrays.toString(upwards));
+        }
+        assertTrue(l.endPointSwingHighVolts() < l.swingHighVolts());
+        assertEquals(r.nodeVolts().get("ref"), l.midRailVolts(), 1e-12);
+        assertEquals(s.nominal().signalPeakVolts(), l.envelopeHighVolts() - l.quiescentVolts(), 1e-12);
+        assertEquals(s.leakageDriftVolts(), l.leakageShiftVolts(), 1e-12);
+        assertFalse(l.clips());
+        assertTrue(l.spreadLowVolts().isEmpty(), "filled only by a tolerance analysis");
+    }
+
+    @Test
+    void aClippingStagesLadderShowsTheEnvelopeBeyondTheWindow() {
+        Design d = TestDesigns.healthyNineVolt().withSource(new halfrail.design.SignalSource(0.5,
+                halfrail.design.AmplitudeUnit.VOLTS_PEAK, 1e3, 20, 20e3));
+        DesignReport r = DesignAnalysis.analyse(d, false);
+        Ladder l = r.ladders().get(0);
+        assertTrue(l.clips());
+        assertTrue(l.envelopeHighVolts() > l.swingHighVolts());
+        assertEquals(l.clips(), r.stages().get(0).nominal().clips());
+    }
 }

@@ -338,6 +338,15 @@ class FindingCatalogueTest {
     }
 
     @Test
+    void withADirectDividerTheBiasCurrentFlowsThroughTheDividerItself() {
+        // 3.3 MΩ over 2.2 MΩ: 42.5 nA through Ra‖Rb = 1.32 MΩ moves the input by +56 mV (Ib·R).
+        DesignReport r = DesignAnalysis.analyse(h().withReference(Reference.direct(3.3e6, 2.2e6)), false);
+        Finding f = only(r, BiasShift.CODE);
+        assertEquals(List.of("reference.upperOhms", "reference.lowerOhms", "stages[0].opAmp"), f.parts());
+        assertEquals(42.5e-9 * 3.3e6 * 2.2e6 / 5.5e6, r.stages().get(0).biasCurrentShiftVolts(), 2e-3);
+    }
+
+    @Test
     void aLargeReferenceCapacitorSettlesSlowly() {
         DesignReport r = DesignAnalysis.analyse(h().withReference(
                 Reference.decoupled(150e3, 100e3, electrolytic(22e-6, 16), 100e3)));
