@@ -299,6 +299,7 @@ class FindingCatalogueTest {
                 OpAmpChoice.custom(singleSupply().withGainBandwidth(100e3)))), false);
         Finding f = only(r, Bandwidth.UPPER);
         assertEquals(Severity.WARN, f.severity());
+        assertEquals(List.of("stages[0].opAmp"), f.parts());
         double upper = r.chain().orElseThrow().upperCornerHz().getAsDouble();
         // Closed-loop bandwidth ≈ GBW / noise gain = 100 kHz / 11 = 9.1 kHz (any op-amp text).
         assertEquals(100e3 / 11, upper, 100e3 / 11 * 0.05);
