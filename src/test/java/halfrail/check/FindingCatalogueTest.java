@@ -117,6 +117,8 @@ class FindingCatalogueTest {
         // Bias gain of a non-inverting stage with R1 to ground: 1 + R2/R1 = 1 + 47k/4.7k = 11 (any op-amp text).
         assertEquals(11.0, s.biasGain(), 0.01);
         assertCarries(amp, "11.0", Text.volts(s.outputVolts()));
+        // Suggested blocking capacitor: corner 5× below 20 Hz, 5/(2π·4.7 kΩ·20 Hz) = 8.5 µF → E6 10 µF (IEC 60063).
+        assertTrue(amp.suggestion().contains(Text.farads(10e-6)), amp.suggestion());
         // Saturated: the headroom checks leave it to REST_ON_RAIL rather than report it twice.
         assertTrue(r.findings(Headroom.CLIPS).isEmpty(), r.findings()::toString);
         assertTrue(healthy.findings(RestsOnRail.CODE).isEmpty());
@@ -286,6 +288,9 @@ class FindingCatalogueTest {
         assertCarries(f, Text.hertz(ch.lowerCornerHz().getAsDouble()), Text.hertz(20));
         // 1/(2π·(1 kΩ + 100 kΩ)·10 nF) = 157.6 Hz (any circuits text).
         assertEquals(157.6, ch.lowerCornerHz().getAsDouble(), 3);
+        // The remedy moves that capacitor's corner 5× below 20 Hz: 10 nF × 157.6 Hz × 5 / 20 Hz = 394 nF,
+        // the next E6 value 470 nF (IEC 60063).
+        assertTrue(f.suggestion().contains(Text.farads(470e-9)), f.suggestion());
         assertTrue(healthy.findings(Bandwidth.LOW_CORNER).isEmpty());
     }
 
