@@ -1,7 +1,11 @@
 package halfrail.check;
 
+import halfrail.circuit.OpAmp;
+import halfrail.design.Stage;
+import halfrail.design.StageKind;
 import halfrail.units.ESeries;
 
+import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
@@ -39,13 +43,13 @@ final class Bandwidth implements DesignCheck {
             out.add(Finding.of(UPPER, Severity.WARN, "the chain's upper −3 dB point is "
                             + Text.hertz(ch.upperCornerHz().getAsDouble()) + ", below the band's high end "
                             + Text.hertz(ch.bandHighHz()),
-                    List.of(), "use op-amps with more gain-bandwidth (at least stage gain × "
+                    slowStages(e, ch.bandHighHz()), "use op-amps with more gain-bandwidth (at least stage gain × "
                             + Text.hertz(ch.bandHighHz()) + " × 3 each) or spread the gain over more stages"));
         }
         for (StageReport s : e.stages()) {
-            if (s.signal() && s.fullPowerHz() < ch.bandHighHz()) {
+            if (s.signal() && s.fullPowerHz().isPresent() && s.fullPowerHz().getAsDouble() < ch.bandHighHz()) {
                 out.add(Finding.at(SLEW, Severity.WARN, s.label() + ": at " + Text.volts(s.nominal().signalPeakVolts())
-                                + " peak the slew rate limits the output to " + Text.hertz(s.fullPowerHz())
+                                + " peak the slew rate limits the output to " + Text.hertz(s.fullPowerHz().getAsDouble())
                                 + ", below the band's high end " + Text.hertz(ch.bandHighHz()),
                         List.of(s.designPath() + ".opAmp"), "choose an op-amp with a slew rate of at least "
                                 + String.format(java.util.Locale.ROOT, "%.2g V/µs",
@@ -53,5 +57,27 @@ final class Bandwidth implements DesignCheck {
                         s.label(), LadderLevel.SIGNAL_ENVELOPE));
             }
         }
+    }
+
+    /**
+     * The op-amps whose own closed-loop bandwidth, GBW / noise gain (any op-amp text), lies below
+     * {@code hz}; all signal stages' op-amps when none does alone (a cascade narrows the band).
+     */
+    private static List<String> slowStages(Evidence e, double hz) {
+        List<Stage> stages = e.design().stages();
+        List<StageReport> reports = e.stages().stream().filter(StageReport::signal).toList();
+        List<String> slow = new ArrayList<>();
+        List<String> all = new ArrayList<>();
+        for (int i = 0; i < stages.size(); i++) {
+            Stage st = stages.get(i);
+            StageReport r = reports.get(i);
+            double noiseGain = st.kind() == StageKind.FOLLOWER ? 1 : 1 + st.feedbackOhms() / st.legOhms();
+            double gbw = ((OpAmp) e.circuit().circuit().element(r.opAmp()).orElseThrow()).params().gainBandwidthHz();
+            all.add(r.designPath() + ".opAmp");
+            if (gbw / noiseGain < hz) {
+                slow.add(r.designPath() + ".opAmp");
+            }
+        }
+        return slow.isEmpty() ? all : slow;
     }
 }

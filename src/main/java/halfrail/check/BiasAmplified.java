@@ -29,13 +29,17 @@ final class BiasAmplified implements DesignCheck {
             Stage stage = stages.get(i++);
             if (Math.abs(s.biasGain()) > LIMIT) {
                 String suggestion;
+                List<String> parts;
                 if (stage.kind() == StageKind.NON_INVERTING && stage.legCapacitor() == null) {
+                    parts = List.of(s.designPath() + ".legCapacitor", s.designPath() + ".legOhms");
                     double c = ESeries.E6.nextHigher(CORNER_MARGIN
                             / (2 * Math.PI * stage.legOhms() * e.design().source().bandLowHz()));
                     suggestion = "put a blocking capacitor of " + Text.farads(c) + " (film or ceramic) in series with R1 "
                             + "to ground, so the stage has gain 1 for its bias and " + String.format(java.util.Locale.ROOT,
                             "%.3g", stage.nominalGain()) + " for the signal";
                 } else {
+                    // An inverting stage DC-coupled from a source at 0 V, or a chain DC-coupled after such a stage.
+                    parts = List.of(s.designPath() + ".inputCapacitor");
                     suggestion = "make the stage's DC gain from the reference 1: a capacitor in series with the "
                             + "resistor to ground, or AC coupling between stages";
                 }
@@ -44,7 +48,7 @@ final class BiasAmplified implements DesignCheck {
                                 + ", so the reference of " + Text.volts(s.inPlusVolts()) + " would become "
                                 + Text.volts(s.biasGain() * s.inPlusVolts()) + "; the output sits at "
                                 + Text.volts(s.outputVolts()),
-                        List.of(s.designPath() + ".legCapacitor", s.designPath() + ".legOhms"), suggestion,
+                        parts, suggestion,
                         s.label(), LadderLevel.QUIESCENT));
             }
         }

@@ -13,7 +13,9 @@ package halfrail.check;
  * @param ratedVolts     rated voltage, V
  * @param deratedVolts   the voltage the checks allow, V
  * @param polarised      whether reverse voltage harms it
- * @param seenOhms       resistance its terminals see with every source held, Ω
+ * @param seenOhms       resistance its terminals see in the middle of the band (geometric mean of its ends),
+ *                       with every source held and every other capacitor at its impedance there — the
+ *                       short-circuit time-constant method; Ω
  * @param cornerHz       its own network corner 1/(2π·R·C), Hz
  * @param limitLeakageAmps leakage at its limit value and working voltage, A
  */

@@ -1,6 +1,10 @@
 package halfrail.check;
 
+import halfrail.parts.CapacitorTechnology;
+import halfrail.parts.PartsLibrary;
+
 import java.util.List;
+import java.util.Optional;
 
 /**
  * Polarised capacitors must never see reverse DC voltage; no capacitor may see more than its
@@ -25,14 +29,27 @@ final class CapacitorVoltage implements DesignCheck {
                                 + "or use a non-polarised film or ceramic part"));
             }
             if (c.worstVolts() > c.deratedVolts()) {
-                double rating = e.design().supply().highVolts();
+                double needed = c.worstVolts() * c.ratedVolts() / c.deratedVolts();
                 out.add(Finding.of(OVER, Severity.FAIL, c.element() + " sees up to " + Text.volts(c.worstVolts())
                                 + " (DC plus signal peak over the supply range), above its derated "
                                 + Text.volts(c.deratedVolts()) + " (rated " + Text.volts(c.ratedVolts()) + ")",
-                        List.of(c.designPath()), "use a part rated for at least "
-                                + Text.volts(c.worstVolts() * c.ratedVolts() / c.deratedVolts())
-                                + " (the supply alone reaches " + Text.volts(rating) + ")"));
+                        List.of(c.designPath()), suggestion(c, needed)));
             }
         }
+    }
+
+    /**
+     * The rating to use: the smallest of the technology's standard ratings at or above
+     * {@code needed} (the rating whose derated voltage covers the worst voltage, with the derating
+     * the check applied), or {@code needed} itself when no standard rating reaches it.
+     */
+    private static String suggestion(CapacitorReport c, double needed) {
+        Optional<CapacitorTechnology> tech = PartsLibrary.builtIn().capacitorTechnology(c.technology());
+        Optional<Double> standard = tech.flatMap(t -> t.standardRatedVolts().stream().filter(v -> v >= needed)
+                .findFirst());
+        return standard.map(v -> "use a part rated " + Text.volts(v) + " (the smallest standard rating whose derated "
+                        + "voltage covers " + Text.volts(c.worstVolts()) + "; at least " + Text.volts(needed) + " is needed)")
+                .orElse("use a part rated for at least " + Text.volts(needed)
+                        + ", or another technology: no standard rating of this one reaches it");
     }
 }

@@ -9,6 +9,15 @@ final class CommonMode implements DesignCheck {
     @Override
     public void inspect(Evidence e, List<Finding> out) {
         for (StageReport s : e.stages()) {
+            if (s.commonModeHighVolts() < s.commonModeLowVolts()) {
+                out.add(Finding.at(CODE, Severity.FAIL, s.label() + ": at " + Text.volts(s.nominal().supplyVolts())
+                                + " the inputs have no usable range at all: they need " + Text.volts(s.commonModeLowVolts())
+                                + " or more and at most " + Text.volts(s.commonModeHighVolts()),
+                        List.of(s.designPath() + ".opAmp"),
+                        "choose an op-amp whose inputs work at this supply, or a higher supply",
+                        s.label(), LadderLevel.COMMON_MODE_LOW));
+                continue;
+            }
             if (!s.commonModeOkAtRest()) {
                 out.add(Finding.at(CODE, Severity.FAIL, s.label() + ": the inputs at rest ("
                                 + Text.volts(s.inPlusVolts()) + ", " + Text.volts(s.inMinusVolts())

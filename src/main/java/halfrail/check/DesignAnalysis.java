@@ -44,9 +44,17 @@ import java.util.OptionalDouble;
  * <p>Everything numeric comes from the engine: DC operating points at the nominal, lowest and
  * highest supply and at three leakage levels, small-signal responses at the nominal operating
  * point, and a power-on transient. Analysis failures of the engine become findings, never
- * exceptions; an invalid design (a {@link halfrail.design.DesignException}) is thrown, naming the field.
+ * exceptions (a failed power-on transient costs only the power-on figures); an invalid design
+ * (a {@link halfrail.design.DesignException}) is thrown, naming the field.
  */
 public final class DesignAnalysis {
+    /** Code of the finding that stands for an engine failure; the report then holds no numbers. */
+    public static final String ANALYSIS_FAILED = "ANALYSIS_FAILED";
+    /**
+     * Code of the finding that says the power-on transient failed; the report then has no
+     * power-on figures but keeps every DC and AC result.
+     */
+    public static final String POWER_ON_FAILED = "POWER_ON_FAILED";
     /** Absolute temperature for thermal-noise figures, K (stated with every noise number). */
     public static final double NOISE_TEMPERATURE_KELVIN = 300;
     /** Boltzmann constant, J/K (SI 2019 exact value). */
@@ -79,6 +87,7 @@ public final class DesignAnalysis {
             for (String node : floating) {
                 findings.add(NoDcPath.finding(nominal, node));
             }
+            findings.addAll(SupplyAndRuntime.beforeSolve(design.supply(), nominal));
             return new DesignReport(design, Optional.of(AnalysisException.Kind.FLOATING_NODE),
                     "no DC path at " + String.join(", ", floating), floating, Map.of(), List.of(), List.of(),
                     Optional.empty(), Optional.empty(), Optional.empty(), List.of(), findings);
@@ -86,11 +95,14 @@ public final class DesignAnalysis {
         try {
             return new Workup(design, nominal, withPowerOn).report();
         } catch (AnalysisException e) {
-            Finding f = Finding.of("ANALYSIS_FAILED", Severity.FAIL,
+            List<Finding> findings = new ArrayList<>();
+            findings.add(Finding.of(ANALYSIS_FAILED, Severity.FAIL,
                     "the circuit could not be solved (" + e.kind() + "): " + e.getMessage(),
-                    List.of(), "check for values far outside the usual range, or simplify the circuit to find the cause");
+                    List.of(), "check for an op-amp outside its supply range or values far outside the usual range, "
+                            + "or simplify the circuit to find the cause"));
+            findings.addAll(SupplyAndRuntime.beforeSolve(design.supply(), nominal));
             return new DesignReport(design, Optional.of(e.kind()), e.getMessage(), List.of(), Map.of(), List.of(),
-                    List.of(), Optional.empty(), Optional.empty(), Optional.empty(), List.of(), List.of(f));
+                    List.of(), Optional.empty(), Optional.empty(), Optional.empty(), List.of(), findings);
         }
     }
 
@@ -171,9 +183,10 @@ public final class DesignAnalysis {
                 Map<String, Double> byCap = new LinkedHashMap<>();
                 oneLeaking.forEach((name, o) -> byCap.put(name, o.voltage(sn.out()) - outNoLeak));
                 double biasShift = op.voltage(sn.inPlus()) - noBias.voltage(sn.inPlus());
-                double fullPower = signalPeak > 0 ? p.slewRateVoltsPerSecond() / (2 * Math.PI * signalPeak)
-                        : Double.POSITIVE_INFINITY;
-                boolean supplyOk = supply.lowVolts() >= p.supplyMinVolts() && supply.highVolts() <= p.supplyMaxVolts();
+                OptionalDouble fullPower = signalPeak > 0
+                        ? OptionalDouble.of(p.slewRateVoltsPerSecond() / (2 * Math.PI * signalPeak))
+                        : OptionalDouble.empty();
+                boolean supplyOk = SupplyAndRuntime.inRange(supply, p);
                 boolean cmPeaks = st.inPlusVolts() - inputPeak >= st.commonModeLowVolts()
                         && st.inPlusVolts() + inputPeak <= st.commonModeHighVolts();
                 stages.add(new StageReport(sn.label(), sn.designPath(), sn.opAmp(), sn.signal(), st.inPlusVolts(),
@@ -197,7 +210,7 @@ public final class DesignAnalysis {
                 double worst = Math.max(Math.abs(dc), Math.max(Math.abs(dcLow), Math.abs(dcHigh))) + sigPeak;
                 double override = design.thresholds().capacitorDeratingOverride();
                 double derated = override > 0 ? override * c.ratedVolts() : tech.deratedVolts(c.ratedVolts());
-                double seen = linear.resistanceBetween(c.plus(), c.minus());
+                double seen = seenOhms(c, guess, Math.sqrt(bandLow * bandHigh));
                 double corner = 1 / (2 * Math.PI * seen * c.farads());
                 double leak = tech.leakageAmps(c.farads(), c.ratedVolts(), Math.abs(dc), LeakageLevel.LIMIT);
                 capacitors.add(new CapacitorReport(c.name(), nominal.designPath(c.name()), tech.id(), c.farads(), dc,
@@ -206,12 +219,28 @@ public final class DesignAnalysis {
 
             ChainReport chain = chain(ac);
             BatteryReport battery = battery(op);
-            Optional<PowerOnReport> powerOn = withPowerOn ? Optional.of(powerOn(op)) : Optional.empty();
+            Optional<PowerOnReport> powerOn = Optional.empty();
+            AnalysisException powerOnFailure = null;
+            if (withPowerOn) {
+                try {
+                    powerOn = Optional.of(powerOn(op));
+                } catch (AnalysisException e) {
+                    // The DC and AC results stand; only the power-on figures are missing.
+                    powerOnFailure = e;
+                }
+            }
 
             Evidence evidence = new Evidence(design, nominal, stages, capacitors, chain, powerOn, battery);
             List<Finding> findings = new ArrayList<>();
             for (DesignCheck check : Checks.ALL) {
                 check.inspect(evidence, findings);
+            }
+            if (powerOnFailure != null) {
+                findings.add(Finding.of(POWER_ON_FAILED, Severity.WARN, "the power-on transient could not be computed ("
+                                + powerOnFailure.kind() + "): " + powerOnFailure.getMessage()
+                                + "; the settle-up, start-rail and start-step checks were not made",
+                        List.of("thresholds.maxSettleSeconds", "powerOnRampSeconds"),
+                        "check the settle-time limit and the supply ramp for values far outside the usual range"));
             }
             List<StageReport> withCodes = new ArrayList<>();
             for (StageReport s : stages) {
@@ -223,6 +252,22 @@ public final class DesignAnalysis {
                     Optional.of(chain), powerOn, Optional.of(battery), ladders, findings);
         }
 
+        /**
+         * The resistance capacitor {@code c} sees at {@code hz} (the middle of the band), Ω: the
+         * magnitude of the impedance between its terminals with the capacitor itself taken out,
+         * every source held, and every other capacitor at its impedance there — coupling and
+         * decoupling capacitors all but short. This is the resistance of the short-circuit
+         * time-constant method for low-frequency corners (Sedra and Smith, Microelectronic
+         * Circuits, low-frequency response of amplifiers — from memory); the DC resistance would
+         * count, say, the divider behind a decoupled reference that the band never sees.
+         */
+        private double seenOhms(Capacitor c, double[] guess, double hz) {
+            String probe = "IPROBE_" + c.name();
+            Circuit without = nominal.circuit().replace(c.name(), e -> new CurrentSource(probe, c.plus(), c.minus(), 0));
+            AcAnalysis probeAc = new AcAnalysis(solve(without, guess));
+            return probeAc.response(probe, c.plus(), c.minus(), hz).magnitude();
+        }
+
         private ChainReport chain(AcAnalysis ac) {
             double bandLow = design.source().bandLowHz();
             double bandHigh = design.source().bandHighHz();
@@ -232,6 +277,8 @@ public final class DesignAnalysis {
             double rippleGain = 0;
             double ripple = 0;
             if (supply.rippleVoltsPeak() > 0) {
+                // AcAnalysis answers per unit of the named source whatever its AC magnitude (0 for
+                // the supply), so this is the supply-to-load transfer; scaled by the ripple below.
                 rippleGain = ac.response(nominal.supplySource(), nominal.loadNode(), supply.rippleHz()).magnitude();
                 ripple = rippleGain * supply.rippleVoltsPeak();
             }

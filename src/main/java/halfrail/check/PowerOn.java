@@ -43,10 +43,14 @@ final class PowerOn implements DesignCheck {
             }
         }
         if (p.loadStepVolts() > e.thresholds().maxStepVolts()) {
+            boolean coupled = e.design().load().outputCapacitor() != null;
             out.add(Finding.of(STEP, Severity.WARN, "at switch-on the load sees a step of up to "
                             + Text.volts(p.loadStepVolts()) + " (limit " + Text.volts(e.thresholds().maxStepVolts()) + ")",
-                    List.of("load.outputCapacitor"), "ramp the supply more slowly, add a resistor to ground before "
-                            + "the output capacitor so it charges before the load is connected, or mute at start"));
+                    List.of(coupled ? "load.outputCapacitor" : "load"), coupled
+                            ? "ramp the supply more slowly, add a resistor to ground before the output capacitor so it "
+                            + "charges before the load is connected, or mute at start"
+                            : "the load is DC-coupled, so it rises with the output from 0 V to the rest point and then "
+                            + "carries it: couple it through an output capacitor (with a resistor to ground before it)"));
         }
     }
 }

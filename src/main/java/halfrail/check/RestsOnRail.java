@@ -18,10 +18,13 @@ final class RestsOnRail implements DesignCheck {
             if (n.saturated() || low || high) {
                 boolean atLow = n.saturated() ? n.availableLowVolts() < n.availableHighVolts() : low;
                 String limit = atLow ? "lower" : "upper";
-                out.add(Finding.at(CODE, Severity.FAIL,
-                        s.label() + ": the output rests at " + Text.volts(n.quiescentVolts()) + ", on its " + limit
-                                + " swing limit (window " + Text.volts(n.swingLowVolts()) + " to "
+                String where = window > 0
+                        ? ", on its " + limit + " swing limit (window " + Text.volts(n.swingLowVolts()) + " to "
                                 + Text.volts(n.swingHighVolts()) + " at " + Text.volts(n.supplyVolts()) + ")"
+                        : ": at " + Text.volts(n.supplyVolts()) + " the part has no output window at all (it needs "
+                                + "more supply than its two output headrooms together)";
+                out.add(Finding.at(CODE, Severity.FAIL,
+                        s.label() + ": the output rests at " + Text.volts(n.quiescentVolts()) + where
                                 + (n.saturated() ? "; the op-amp has left its linear region" : ""),
                         List.of(s.designPath()),
                         "bias the stage at the middle of its window, about "

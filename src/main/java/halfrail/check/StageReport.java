@@ -2,6 +2,7 @@ package halfrail.check;
 
 import java.util.List;
 import java.util.Map;
+import java.util.OptionalDouble;
 
 /**
  * One op-amp of a design, analysed. Voltages in V, gains in V/V, frequencies in Hz.
@@ -26,7 +27,8 @@ import java.util.Map;
  * @param leakageDriftVolts  output shift between leak-free capacitors and every capacitor at its limit leakage
  * @param leakageDriftByCapacitor the same shift with only one capacitor leaking at its limit, by element name
  * @param biasCurrentShiftVolts shift of the non-inverting input caused by the op-amps' input bias currents
- * @param fullPowerHz        frequency at which the slew rate limits the nominal output swing: SR/(2π·Vpeak)
+ * @param fullPowerHz        frequency at which the slew rate limits the nominal output swing: SR/(2π·Vpeak), Hz;
+ *                           empty when the output carries no signal (nothing to slew)
  * @param supplyInRange      whether the supply, over its whole range, stays within the op-amp's specified range
  * @param findingsCodes      codes of the findings that concern this op-amp
  */
@@ -37,7 +39,7 @@ public record StageReport(String label, String designPath, String opAmp, boolean
                           SwingReport nominal, SwingReport endPoint, SwingReport fresh,
                           double stageGain, double biasGain, double leakageDriftVolts,
                           Map<String, Double> leakageDriftByCapacitor, double biasCurrentShiftVolts,
-                          double fullPowerHz, boolean supplyInRange, List<String> findingsCodes) {
+                          OptionalDouble fullPowerHz, boolean supplyInRange, List<String> findingsCodes) {
     public StageReport {
         leakageDriftByCapacitor = Map.copyOf(leakageDriftByCapacitor);
         findingsCodes = List.copyOf(findingsCodes);

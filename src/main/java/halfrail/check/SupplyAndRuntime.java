@@ -1,5 +1,12 @@
 package halfrail.check;
 
+import halfrail.circuit.OpAmp;
+import halfrail.circuit.OpAmpParams;
+import halfrail.design.DesignCircuit;
+import halfrail.design.StageNodes;
+import halfrail.design.Supply;
+
+import java.util.ArrayList;
 import java.util.List;
 
 /** The op-amps' specified supply range against the supply's whole range; runtime against the design's target. */
@@ -11,13 +18,7 @@ final class SupplyAndRuntime implements DesignCheck {
     public void inspect(Evidence e, List<Finding> out) {
         for (StageReport s : e.stages()) {
             if (!s.supplyInRange()) {
-                out.add(Finding.at(RANGE, Severity.FAIL, s.label() + ": the supply runs from "
-                                + Text.volts(e.design().supply().lowVolts()) + " to "
-                                + Text.volts(e.design().supply().highVolts())
-                                + ", outside the op-amp's specified supply range",
-                        List.of(s.designPath() + ".opAmp", "supply"),
-                        "choose an op-amp specified for the whole supply range, from fresh to end-point",
-                        s.label(), LadderLevel.END_POINT_SUPPLY));
+                out.add(range(e.design().supply(), s.label(), s.designPath()));
             }
         }
         double target = e.thresholds().minRuntimeHours();
@@ -30,5 +31,34 @@ final class SupplyAndRuntime implements DesignCheck {
                     List.of("reference", "supply"),
                     "raise the divider resistance, or choose lower-power op-amps"));
         }
+    }
+
+    /**
+     * The supply-range findings from the op-amps' parameters alone, for a design whose circuit
+     * could not be solved: an op-amp run outside its supply range is a common reason, and saying
+     * so needs no solution.
+     */
+    static List<Finding> beforeSolve(Supply supply, DesignCircuit circuit) {
+        List<Finding> out = new ArrayList<>();
+        for (StageNodes sn : circuit.opAmps()) {
+            OpAmpParams p = ((OpAmp) circuit.circuit().element(sn.opAmp()).orElseThrow()).params();
+            if (!inRange(supply, p)) {
+                out.add(range(supply, sn.label(), sn.designPath()));
+            }
+        }
+        return out;
+    }
+
+    /** Whether the supply, from its lowest to its highest voltage, stays within the part's specified range. */
+    static boolean inRange(Supply supply, OpAmpParams p) {
+        return supply.lowVolts() >= p.supplyMinVolts() && supply.highVolts() <= p.supplyMaxVolts();
+    }
+
+    private static Finding range(Supply supply, String label, String designPath) {
+        return Finding.at(RANGE, Severity.FAIL, label + ": the supply runs from " + Text.volts(supply.lowVolts())
+                        + " to " + Text.volts(supply.highVolts()) + ", outside the op-amp's specified supply range",
+                List.of(designPath + ".opAmp", "supply"),
+                "choose an op-amp specified for the whole supply range, from fresh to end-point",
+                label, LadderLevel.END_POINT_SUPPLY);
     }
 }

@@ -28,6 +28,19 @@ import java.util.Map;
  * the source resistance); the output capacitor {@code COUT} feeds node {@code load} with
  * {@code RL} and {@code CL}.
  *
+ * <p>A {@link ReferenceKind#DIVIDER_DIRECT} reference has no bias resistors: every stage that
+ * takes its bias from it connects its non-inverting input to the one divider node {@code ref}
+ * (an AC-coupled non-inverting stage or follower, and every inverting stage). That node then
+ * carries whatever signal any of those inputs carries. An AC-coupled non-inverting stage or
+ * follower puts the signal itself on {@code ref}; if a second stage also sat on {@code ref},
+ * the signal would reach it through the reference (and from a later stage back into an earlier
+ * one: a feedback loop through the divider). So with a direct reference at most one stage may
+ * put signal on the divider node, and then it must be the only stage tied to it; a design that
+ * breaks this is rejected with a {@link DesignException} naming the later stage. Inverting
+ * stages carry no signal at their non-inverting inputs, so several of them may share the node
+ * (they still share its supply ripple). Designs with more stages use a decoupled or buffered
+ * reference, whose bias resistors keep the stages apart.
+ *
  * <p>Polarised capacitors are oriented the usual way: the positive terminal towards the side
  * that sits at the reference (the stage side of an input capacitor, the leg side of the
  * feedback-leg capacitor, the stage side of the output capacitor); the checks flag any that
@@ -86,6 +99,10 @@ public final class DesignCircuits {
         private final Circuit.Builder b = Circuit.builder().implicitNodes();
         private final Map<String, String> paths = new LinkedHashMap<>();
         private final List<StageNodes> opAmps = new ArrayList<>();
+        /** With a direct reference: the design path of the first stage tied to the divider node, if any. */
+        private String firstOnReference;
+        /** Whether that stage (or any stage tied to the node) puts signal on the divider node. */
+        private boolean signalOnReference;
 
         Builder(Design design, double volts, LeakageLevel leakage) {
             this.design = design;
@@ -142,6 +159,9 @@ public final class DesignCircuits {
             Reference r = design.reference();
             boolean direct = r.kind() == ReferenceKind.DIVIDER_DIRECT;
             String input;
+            if (direct) {
+                checkSharedReference(i, s);
+            }
             switch (s.kind()) {
                 case NON_INVERTING, FOLLOWER -> {
                     if (s.inputCapacitor() != null) {
@@ -189,6 +209,26 @@ public final class DesignCircuits {
             paths.put(u, path + ".opAmp");
             opAmps.add(new StageNodes(s.name(), path, u, p, m, out, true, input));
             return out;
+        }
+
+        /** Enforces the direct reference's one-signal-stage rule (see the class comment). */
+        private void checkSharedReference(int i, Stage s) {
+            boolean signalStage = s.kind() != StageKind.INVERTING;
+            boolean onReference = signalStage ? s.inputCapacitor() != null && s.biased() : true;
+            if (!onReference) {
+                return;
+            }
+            if (firstOnReference != null && (signalOnReference || signalStage)) {
+                String path = "stages[" + i + "]" + (signalStage ? ".inputCapacitor" : "");
+                throw new DesignException(path, "with a direct divider reference this stage would share the divider "
+                        + "node with " + firstOnReference + ", and the signal of one would reach the other through "
+                        + "it; use a decoupled or buffered reference (each stage gets its own bias resistor)"
+                        + (signalStage ? ", or DC-couple this stage" : ""));
+            }
+            if (firstOnReference == null) {
+                firstOnReference = "stages[" + i + "]";
+            }
+            signalOnReference |= signalStage;
         }
 
         private String load(String previous) {

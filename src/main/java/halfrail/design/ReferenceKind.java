@@ -2,7 +2,10 @@ package halfrail.design;
 
 /** How the mid-rail reference reaches the stages. */
 public enum ReferenceKind {
-    /** The divider's mid point goes straight into the first stage's non-inverting input. */
+    /**
+     * The divider's mid point goes straight into the non-inverting input of the stage it biases.
+     * Only one stage may put signal on that node; see {@link DesignCircuits} for the rule.
+     */
     DIVIDER_DIRECT,
     /** The divider's mid point is decoupled by a capacitor and feeds each stage through a bias resistor. */
     DIVIDER_DECOUPLED,
