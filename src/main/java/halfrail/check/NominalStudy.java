@@ -62,7 +62,11 @@ final class NominalStudy {
      * @throws AnalysisException FLOATING_NODE, NO_CONVERGENCE or SINGULAR when the nominal circuit cannot be solved
      */
     static NominalStudy of(Design design, double supplyVolts) {
-        DesignCircuit dc = DesignCircuits.build(design, supplyVolts, LeakageLevel.TYPICAL);
+        return of(design, DesignCircuits.build(design, supplyVolts, LeakageLevel.TYPICAL));
+    }
+
+    /** Solve {@code dc}, the circuit of {@code design}. */
+    static NominalStudy of(Design design, DesignCircuit dc) {
         List<String> floating = FloatingNodes.find(dc.circuit());
         if (!floating.isEmpty()) {
             throw new AnalysisException(AnalysisException.Kind.FLOATING_NODE,
