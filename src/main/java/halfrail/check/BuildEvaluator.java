@@ -14,19 +14,17 @@ final class BuildEvaluator {
     @FunctionalInterface
     interface DcSolve {
         /** @throws halfrail.solve.AnalysisException when the circuit cannot be solved */
-        OperatingPoint solve(Circuit circuit, double[] guess);
+        OperatingPoint solve(Circuit circuit, OperatingPoint from);
     }
 
     final ToleranceModel model;
     final NominalStudy nominal;
     private final DcSolve dc;
-    private final double[] guess;
 
     BuildEvaluator(ToleranceModel model, DcSolve dc) {
         this.model = model;
         this.nominal = NominalStudy.of(model.design(), model.nominalCircuit());
         this.dc = dc;
-        this.guess = nominal.op.solution();
     }
 
     BuildEvaluator(ToleranceModel model) {
@@ -44,7 +42,7 @@ final class BuildEvaluator {
      * @throws halfrail.solve.AnalysisException when the build cannot be solved
      */
     boolean evaluate(double[] values, double[] quiescentVolts, double[] headroomDb, boolean[] saturated) {
-        OperatingPoint p = dc.solve(model.circuit(values), guess);
+        OperatingPoint p = dc.solve(model.circuit(values), nominal.op);
         boolean all = true;
         for (int k = 0; k < quiescentVolts.length; k++) {
             SwingReport s = nominal.swing(p, k, nominal.supplyVolts);

@@ -76,9 +76,22 @@ final class NominalStudy {
         return new NominalStudy(design, dc, op);
     }
 
-    /** Solve {@code c} (same topology as the nominal circuit) from {@code guess}, falling back to a cold start. */
-    static OperatingPoint solve(Circuit c, double[] guess) {
-        DcSolver s = new DcSolver(MnaSystem.of(c));
+    /**
+     * Solve {@code c} (same topology as the circuit of {@code from}) with Newton started from
+     * {@code from}'s solution — unless an op-amp that was linear there would find its open-loop
+     * target beyond a rail at that starting point (a changed offset times an open-loop gain of
+     * 1e5 easily does): Newton cannot leave a saturated limiter whose slope is zero, so it is then
+     * started from the linearised circuit instead, as it is when the warm start fails to converge.
+     */
+    static OperatingPoint solve(Circuit c, OperatingPoint from) {
+        MnaSystem system = MnaSystem.of(c);
+        DcSolver s = new DcSolver(system);
+        double[] guess = from.solution();
+        for (OpAmpState st : from.opAmps()) {
+            if (!st.saturated() && system.saturated(guess, st.name())) {
+                return s.solve();
+            }
+        }
         try {
             return s.solveFrom(guess);
         } catch (AnalysisException e) {

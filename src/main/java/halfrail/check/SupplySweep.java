@@ -57,6 +57,10 @@ public final class SupplySweep {
         double low = supply.lowVolts();
         double high = supply.highVolts();
         double slack = RANGE_SLACK * (high - low) + RANGE_SLACK * high;
+        if (!(high > low)) {
+            throw new StudyOptionsException("sweep.toVolts", "the supply has the one voltage " + low
+                    + " V (no tolerance band, no discharge): there is no range to sweep");
+        }
         double from = options.fromVolts().orElse(low);
         double to = options.toVolts().orElse(high);
         if (from < low - slack || from > high + slack) {
@@ -101,7 +105,7 @@ public final class SupplySweep {
             this.supplySource = (VoltageSource) template.element(DesignCircuits.SUPPLY).orElseThrow();
         }
 
-        OperatingPoint solveAt(double v, double[] guess) {
+        OperatingPoint solveAt(double v, OperatingPoint guess) {
             Circuit c = template.replace(DesignCircuits.SUPPLY, e -> supplySource.withDcVolts(v));
             return NominalStudy.solve(c, guess);
         }
@@ -110,12 +114,12 @@ public final class SupplySweep {
             int n = volts.length;
             int m = nominal.opAmps.size();
             SwingReport[][] swings = new SwingReport[m][n];
-            double[] guess = nominal.op.solution();
-            List<double[]> solutions = new ArrayList<>(n);
+            OperatingPoint guess = nominal.op;
+            List<OperatingPoint> solutions = new ArrayList<>(n);
             for (int i = 0; i < n; i++) {
                 OperatingPoint p = solveAt(volts[i], guess);
-                guess = p.solution();
-                solutions.add(guess);
+                guess = p;
+                solutions.add(p);
                 for (int k = 0; k < m; k++) {
                     swings[k][i] = nominal.swing(p, k, volts[i]);
                 }
@@ -158,7 +162,7 @@ public final class SupplySweep {
             return new SupplySweepResult(design, volts, left, out);
         }
 
-        private LowestPassingSupply lowest(int k, boolean[] pass, double[] headroom, List<double[]> solutions) {
+        private LowestPassingSupply lowest(int k, boolean[] pass, double[] headroom, List<OperatingPoint> solutions) {
             int n = volts.length;
             if (!pass[n - 1]) {
                 return new LowestPassingSupply(LowestPassingSupply.Verdict.FAILS_AT_TOP, OptionalDouble.empty(),
@@ -175,7 +179,7 @@ public final class SupplySweep {
             // Bracket: fails at volts[j], passes at volts[j+1].
             double failV = volts[j];
             double passV = volts[j + 1];
-            double[] guess = solutions.get(j + 1);
+            OperatingPoint guess = solutions.get(j + 1);
             double margin = nominal.minHeadroomDb;
             double mFail = headroom[j] - margin;
             double mPass = headroom[j + 1] - margin;
@@ -207,7 +211,7 @@ public final class SupplySweep {
                     capacityLeftPercent(design.supply(), passV));
         }
 
-        private boolean passesAt(int k, double v, double[] guess) {
+        private boolean passesAt(int k, double v, OperatingPoint guess) {
             OperatingPoint p = solveAt(v, guess);
             return nominal.passes(nominal.swing(p, k, v), k);
         }
