@@ -22,8 +22,8 @@ import java.util.concurrent.atomic.AtomicLong;
  * operating point (Newton started from the nominal solution) and its headroom at the nominal
  * signal gain (one AC analysis at nominal, reused).
  *
- * <p>Builds run in chunks of {@link #CHUNK_BUILDS} on the executor given (by default the common
- * fork-join pool: every core); results are stored by build index and summarised in index order,
+ * <p>Builds run in chunks of {@link #CHUNK_BUILDS} on the executor given (by default a fork-join
+ * pool with one worker per processor, made for the run); results are stored by build index and summarised in index order,
  * so the numbers do not depend on the thread count. The cancel token is checked before every
  * build; a cancelled study throws {@link StudyCancelledException}. Progress is reported after
  * every chunk. A build that cannot be solved is counted in {@link MonteCarloResult#failedToConverge()}
@@ -39,10 +39,18 @@ public final class MonteCarlo {
 
     private MonteCarlo() {}
 
-    /** Run on every core (the common fork-join pool), without progress or cancellation. */
+    /**
+     * Run on every core, without progress or cancellation: on a fork-join pool of one worker per
+     * available processor, made for this run and shut down after it.
+     */
     public static MonteCarloResult run(Design design, ToleranceOptions tolerances, MonteCarloOptions options) {
-        return run(ToleranceModel.of(design, tolerances), options, ForkJoinPool.commonPool(), StudyProgress.NONE,
-                CancelToken.none());
+        ToleranceModel model = ToleranceModel.of(design, tolerances);
+        ForkJoinPool pool = new ForkJoinPool(Runtime.getRuntime().availableProcessors());
+        try {
+            return run(model, options, pool, StudyProgress.NONE, CancelToken.none());
+        } finally {
+            pool.shutdown();
+        }
     }
 
     /**

@@ -41,13 +41,14 @@ public final class StudyOptionsException extends RuntimeException {
         return v;
     }
 
-    /** A tolerance as a fraction: 0 to 1 (0 % to 100 %). */
+    /** A tolerance as a fraction: from 0 up to, not including, 1 (100 % would let a value reach zero). */
     static double tolerance(String field, double v) {
         if (!Double.isFinite(v) || v < 0) {
             throw new StudyOptionsException(field, "must be a fraction of zero or more (0.05 is ±5 %), got " + v);
         }
-        if (v > 1) {
-            throw new StudyOptionsException(field, "must be at most 1 (100 %), got " + v + " (" + 100 * v + " %)");
+        if (v >= 1) {
+            throw new StudyOptionsException(field, "must be below 1 (100 %), got " + v + " (" + 100 * v
+                    + " %): at 100 % or more a part's value could reach zero or below");
         }
         return v;
     }

@@ -22,7 +22,9 @@ import java.util.OptionalDouble;
  * the supply voltage, with the lowest supply at which each op-amp still passes.
  *
  * <p>Every point is a DC operating point of the design's circuit (typical leakage) with only the
- * supply voltage changed, Newton started from the previous point's solution. The signal peak at
+ * supply voltage changed — the swept value is the supply's open-circuit voltage (for a battery, the
+ * discharge curve's voltage), its internal resistance staying in series — Newton started from the
+ * previous point's solution. The signal peak at
  * each output comes from one AC analysis at the nominal supply and is reused at every point
  * (see {@link NominalStudy}). The lowest passing supply is found on the swept data (the highest
  * failing point below a passing one; a linear interpolation of the headroom margin there gives a

@@ -11,7 +11,7 @@ import java.util.Map;
  * technology's typical value and its standard's limit.
  *
  * @param resistorTolerance          relative tolerance of every resistor of the design, a fraction
- *                                   (0.01 = ±1 %), 0 to 1
+ *                                   (0.01 = ±1 %), from 0 up to, not including, 1
  * @param resistorTempcoPpmPerKelvin largest temperature coefficient of a resistor, ppm/K, not negative;
  *                                   each resistor's own coefficient lies anywhere within ±this
  * @param minTemperatureCelsius      lowest operating temperature, °C

@@ -122,6 +122,8 @@ class WorstCaseTest {
                 () -> ToleranceOptions.defaults().withResistorTolerance(1.5)).field());
         assertEquals("tolerance.resistorTolerance", assertThrows(StudyOptionsException.class,
                 () -> ToleranceOptions.defaults().withResistorTolerance(-0.01)).field());
+        assertEquals("tolerance.resistorTolerance", assertThrows(StudyOptionsException.class,
+                () -> ToleranceOptions.defaults().withResistorTolerance(1.0)).field());
         assertEquals("tolerance.resistorTempcoPpmPerKelvin", assertThrows(StudyOptionsException.class,
                 () -> ToleranceOptions.defaults().withTempco(-5, 0, 50)).field());
         assertEquals("tolerance.maxTemperatureCelsius", assertThrows(StudyOptionsException.class,
