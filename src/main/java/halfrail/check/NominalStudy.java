@@ -82,9 +82,10 @@ final class NominalStudy {
      * target beyond a rail at that starting point (a changed offset times an open-loop gain of
      * 1e5 easily does): Newton cannot leave a saturated limiter whose slope is zero, so it is then
      * started from the linearised circuit instead, as it is when the warm start fails to converge.
+     * The equations reuse {@code from}'s unknowns ({@link MnaSystem#withValuesOf}).
      */
     static OperatingPoint solve(Circuit c, OperatingPoint from) {
-        MnaSystem system = MnaSystem.of(c);
+        MnaSystem system = from.system().withValuesOf(c);
         DcSolver s = new DcSolver(system);
         double[] guess = from.solution();
         for (OpAmpState st : from.opAmps()) {

@@ -1,6 +1,7 @@
 package halfrail.check;
 
 import halfrail.circuit.Circuit;
+import halfrail.circuit.Element;
 import halfrail.circuit.VoltageSource;
 import halfrail.design.CellPack;
 import halfrail.design.Design;
@@ -95,6 +96,7 @@ public final class SupplySweep {
         private final double[] volts;
         private final Circuit template;
         private final VoltageSource supplySource;
+        private final int supplyIndex;
 
         Run(Design design, double from, double to, int points) {
             this.design = design;
@@ -105,11 +107,13 @@ public final class SupplySweep {
             }
             this.template = nominal.circuit.circuit();
             this.supplySource = (VoltageSource) template.element(DesignCircuits.SUPPLY).orElseThrow();
+            this.supplyIndex = template.elements().indexOf(supplySource);
         }
 
         OperatingPoint solveAt(double v, OperatingPoint guess) {
-            Circuit c = template.replace(DesignCircuits.SUPPLY, e -> supplySource.withDcVolts(v));
-            return NominalStudy.solve(c, guess);
+            List<Element> elements = new ArrayList<>(template.elements());
+            elements.set(supplyIndex, supplySource.withDcVolts(v));
+            return NominalStudy.solve(template.withValues(elements), guess);
         }
 
         SupplySweepResult result() {

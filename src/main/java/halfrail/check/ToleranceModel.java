@@ -57,7 +57,6 @@ public final class ToleranceModel {
     private final ToleranceOptions options;
     private final List<ToleranceParameter> parameters;
     private final Element[] elements;
-    private final List<String> nodes;
     private final ResistorRecipe[] resistors;
     private final CapacitorRecipe[] capacitors;
     private final OpAmpRecipe[] opAmps;
@@ -75,7 +74,6 @@ public final class ToleranceModel {
         this.nominal = DesignCircuits.build(design, supplyVolts, LeakageLevel.TYPICAL);
         Circuit c = nominal.circuit();
         this.elements = c.elements().toArray(new Element[0]);
-        this.nodes = c.nodes();
         PartsLibrary parts = PartsLibrary.builtIn();
         List<ToleranceParameter> list = new ArrayList<>();
         List<ResistorRecipe> rs = new ArrayList<>();
@@ -303,12 +301,7 @@ public final class ToleranceModel {
             double ios = o.offsetCurrent() >= 0 ? values[o.offsetCurrent()] : p.offsetCurrentAmps();
             es[o.element()] = op.withParams(p.withInputErrors(vos, ib, ios));
         }
-        Circuit.Builder b = Circuit.builder().title(nominal.circuit().title());
-        nodes.forEach(b::node);
-        for (Element e : es) {
-            b.add(e);
-        }
-        return b.build();
+        return nominal.circuit().withValues(java.util.Arrays.asList(es));
     }
 
     /**
