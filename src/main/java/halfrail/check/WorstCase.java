@@ -19,7 +19,9 @@ import java.util.List;
  * Both corners are then solved in full (limits and all), so the extremes are solved values, not
  * a linear sum; for a rest point that is monotonic in each parameter — every resistor divider and
  * bias network — they are the true extremes over the whole box of tolerances. Headroom is
- * evaluated at those corners at the nominal signal gain.
+ * evaluated at those corners at the nominal signal gain: with the gain held and the swing window
+ * set by the supply, headroom depends on the rest point alone and is smallest at one of its two
+ * extremes.
  *
  * <p>Temperature drift is bilinear (coefficient × temperature excursion) and has no secant at a
  * nominal coefficient of zero or at 25 °C; so every corner, and the secants of the coefficients,
