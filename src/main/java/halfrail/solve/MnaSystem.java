@@ -99,6 +99,46 @@ public final class MnaSystem {
         this.opAmps = amps.toArray(new OpAmpDevice[0]);
     }
 
+    /** The equations of {@code circuit}, sharing {@code template}'s unknowns (same topology). */
+    private MnaSystem(MnaSystem template, Circuit circuit) {
+        this.circuit = circuit;
+        this.nodeIndex = template.nodeIndex;
+        this.unknownNames = template.unknownNames;
+        this.branchIndex = template.branchIndex;
+        this.stateIndex = template.stateIndex;
+        this.nodeCount = template.nodeCount;
+        this.size = template.size;
+        List<Element> list = circuit.elements();
+        this.devices = new Device[list.size()];
+        for (int i = 0; i < devices.length; i++) {
+            devices[i] = device(list.get(i));
+        }
+    }
+
+    /**
+     * The equations of {@code circuit}, a variant of this system's circuit with the same nodes and
+     * the same elements in the same order, only their values changed (see
+     * {@link Circuit#withValues}): the unknowns and their order are shared, so a solution of this
+     * system is a valid starting point for the new one.
+     *
+     * @throws AnalysisException BAD_REQUEST when the nodes or the elements' names, types or terminals differ
+     */
+    public MnaSystem withValuesOf(Circuit circuit) {
+        List<Element> mine = this.circuit.elements();
+        List<Element> theirs = circuit.elements();
+        boolean same = circuit.nodes().equals(this.circuit.nodes()) && mine.size() == theirs.size();
+        for (int i = 0; same && i < mine.size(); i++) {
+            Element a = mine.get(i);
+            Element b = theirs.get(i);
+            same = a.getClass() == b.getClass() && a.name().equals(b.name()) && a.terminals().equals(b.terminals());
+        }
+        if (!same) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
+                    "the circuit's topology differs from this system's; assemble it with MnaSystem.of");
+        }
+        return new MnaSystem(this, circuit);
+    }
+
     /** Assemble the equations of {@code circuit}. */
     public static MnaSystem of(Circuit circuit) {
         return new MnaSystem(circuit);
