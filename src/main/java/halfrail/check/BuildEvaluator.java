@@ -47,7 +47,7 @@ final class BuildEvaluator {
         for (int k = 0; k < quiescentVolts.length; k++) {
             SwingReport s = nominal.swing(p, k, nominal.supplyVolts);
             quiescentVolts[k] = s.quiescentVolts();
-            headroomDb[k] = s.headroomDb();
+            headroomDb[k] = s.headroomDbOrInfinite();
             saturated[k] = s.saturated();
             all &= nominal.passes(s, k);
         }

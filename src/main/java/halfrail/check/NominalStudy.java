@@ -118,6 +118,6 @@ final class NominalStudy {
         if (s.saturated()) {
             return false;
         }
-        return !opAmps.get(k).signal() || s.headroomDb() >= minHeadroomDb;
+        return !opAmps.get(k).signal() || s.headroomDbOrInfinite() >= minHeadroomDb;
     }
 }

@@ -156,7 +156,7 @@ public final class SupplySweep {
                     hi[i] = s.swingHighVolts();
                     aLo[i] = s.availableLowVolts();
                     aHi[i] = s.availableHighVolts();
-                    hr[i] = s.headroomDb();
+                    hr[i] = s.headroomDbOrInfinite();
                     sat[i] = s.saturated();
                     pass[i] = nominal.passes(s, k);
                 }

@@ -45,6 +45,18 @@ public record SwingReport(double supplyVolts, double quiescentVolts, double swin
                 largest, saturated);
     }
 
+    /**
+     * Headroom as a plain number for arrays of many solves (sweeps, Monte Carlo histograms), dB:
+     * {@link Double#POSITIVE_INFINITY} when the output carries no signal (it never clips),
+     * {@link Double#NEGATIVE_INFINITY} when there is no room at all.
+     */
+    double headroomDbOrInfinite() {
+        if (headroomDb.isPresent()) {
+            return headroomDb.getAsDouble();
+        }
+        return hasSignal() ? Double.NEGATIVE_INFINITY : Double.POSITIVE_INFINITY;
+    }
+
     /** Whether the output carries any signal at the nominal level. */
     public boolean hasSignal() {
         return signalPeakVolts > 0;

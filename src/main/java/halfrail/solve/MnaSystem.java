@@ -90,13 +90,17 @@ public final class MnaSystem {
             list.add(device(e));
         }
         this.devices = list.toArray(new Device[0]);
+        this.opAmps = opAmpDevices(devices);
+    }
+
+    private static OpAmpDevice[] opAmpDevices(Device[] devices) {
         List<OpAmpDevice> amps = new ArrayList<>();
         for (Device d : devices) {
             if (d instanceof OpAmpDevice o) {
                 amps.add(o);
             }
         }
-        this.opAmps = amps.toArray(new OpAmpDevice[0]);
+        return amps.toArray(new OpAmpDevice[0]);
     }
 
     /** The equations of {@code circuit}, sharing {@code template}'s unknowns (same topology). */
@@ -113,6 +117,7 @@ public final class MnaSystem {
         for (int i = 0; i < devices.length; i++) {
             devices[i] = device(list.get(i));
         }
+        this.opAmps = opAmpDevices(devices);
     }
 
     /**

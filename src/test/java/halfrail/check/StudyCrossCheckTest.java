@@ -36,7 +36,7 @@ class StudyCrossCheckTest {
         StageReport s = report.stage("boost").orElseThrow();
         StageSupplySweep sw = r.opAmp("boost").orElseThrow();
         assertEquals(s.outputVolts(), sw.quiescentVolts()[0], 1e-9);
-        assertEquals(s.nominal().headroomDb(), sw.headroomDb()[0], 1e-9);
+        assertEquals(s.nominal().headroomDb().orElseThrow(), sw.headroomDb()[0], 1e-9);
         assertEquals(s.nominal().swingHighVolts(), sw.swingHighVolts()[0], 1e-9);
     }
 
