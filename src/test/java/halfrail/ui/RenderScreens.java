@@ -1,0 +1,76 @@
+package halfrail.ui;
+
+import javafx.embed.swing.SwingFXUtils;
+import javafx.scene.Scene;
+import javafx.scene.image.WritableImage;
+import org.junit.jupiter.api.Tag;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.condition.EnabledIfSystemProperty;
+import org.testfx.api.FxToolkit;
+import org.testfx.util.WaitForAsyncUtils;
+
+import javax.imageio.ImageIO;
+import java.awt.image.BufferedImage;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.TimeUnit;
+
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+/**
+ * Renders the main window headlessly (Monocle) to {@code docs/images/}. Not part of the normal
+ * test run; make the pictures with
+ * {@code mvn -B test -Dtest='halfrail/ui/RenderScreens*' -Dhalfrail.pictures=true}.
+ */
+@Tag("pictures")
+@EnabledIfSystemProperty(named = "halfrail.pictures", matches = "true")
+class RenderScreens {
+    static final Path OUT = Path.of("docs", "images");
+
+    static {
+        // Monocle's headless screen is 1280 × 800 unless told otherwise; the pictures show the full window
+        System.setProperty("headless.geometry", (int) HalfrailApp.WINDOW_WIDTH + "x" + (int) HalfrailApp.WINDOW_HEIGHT + "-32");
+    }
+
+    @Test
+    void rendersTheMainWindowOnTheSampleDesign() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), null, "main-window.png");
+        assertTrue(Files.size(file) > 10_000, "a real picture, not an empty one");
+    }
+
+    @Test
+    void rendersTheMainWindowOnTheFaultySample() throws Exception {
+        Path file = render(SampleDesigns.missingLegCapacitor(), "CLIPS", "main-window-faulty.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    /** Render a window on {@code design}, selecting the first finding when {@code selectFirst} is given. */
+    static Path render(halfrail.design.Design design, String selectFirst, String name) throws Exception {
+        FxToolkit.registerPrimaryStage();
+        WorkbenchView view = WaitForAsyncUtils.asyncFx(
+                () -> HalfrailApp.workbench(new SynchronousAnalysisExecutor(), design)).get(30, TimeUnit.SECONDS);
+        Scene scene = WaitForAsyncUtils.asyncFx(() -> HalfrailApp.scene(view)).get();
+        FxToolkit.setupStage(stage -> {
+            stage.setScene(scene);
+            stage.show();
+        });
+        if (selectFirst != null) {
+            WaitForAsyncUtils.asyncFx(() -> view.findings().list().getSelectionModel().select(0)).get();
+        }
+        WaitForAsyncUtils.waitForFxEvents();
+        WritableImage image = WaitForAsyncUtils.asyncFx(() -> scene.snapshot(null)).get(30, TimeUnit.SECONDS);
+        BufferedImage png = SwingFXUtils.fromFXImage(image, null);
+        Files.createDirectories(OUT);
+        Path file = OUT.resolve(name);
+        write(png, file);
+        FxToolkit.cleanupStages();
+        return file;
+    }
+
+    private static void write(BufferedImage png, Path file) throws IOException {
+        if (!ImageIO.write(png, "png", file.toFile())) {
+            throw new IOException("no PNG writer");
+        }
+    }
+}
