@@ -1,0 +1,218 @@
+package halfrail.ui;
+
+import halfrail.check.DesignReport;
+import halfrail.check.Finding;
+import halfrail.check.Ladder;
+import halfrail.check.LadderLevel;
+import halfrail.check.Severity;
+import halfrail.design.Design;
+import org.junit.jupiter.api.Test;
+
+import java.util.Optional;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertSame;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+/**
+ * The main view-model with a synchronous executor: every edit is analysed before the call
+ * returns. JavaFX properties work without the toolkit, so these tests need no window.
+ */
+class WorkbenchModelTest {
+    private final SynchronousAnalysisExecutor sync = new SynchronousAnalysisExecutor();
+    private final WorkbenchModel model = new WorkbenchModel(sync, SampleDesigns.instrumentBoost(), Optional.empty());
+
+    private EditorPanelModel.TextEntry entry(String path) {
+        return (EditorPanelModel.TextEntry) model.editor().field(path).orElseThrow();
+    }
+
+    private Ladder ladder() {
+        return model.ladders().rungs().get(0).ladder();
+    }
+
+    @Test
+    void theSampleIsAnalysedOnOpeningAndRestsAtMidRail() {
+        DesignReport r = model.reportProperty().get();
+        assertTrue(r.failure().isEmpty());
+        assertEquals(1, model.ladders().rungs().size());
+        // equal 100k/100k divider on the nominal 9 V block: 9 · 100k/(100k+100k) = 4.5 V
+        // (voltage-divider rule, any circuits textbook); the stage's bias gain is 1, so the output rests there too
+        assertEquals(4.5, ladder().midRailVolts(), 0.05);
+        assertEquals(4.5, ladder().quiescentVolts(), 0.05);
+        assertEquals("4.50 V", model.readings().readings().get(0).rest());
+    }
+
+    @Test
+    void raisingR2WidensTheEnvelopeByTheNonInvertingGainRatio() {
+        double before = ladder().envelopeHighVolts() - ladder().quiescentVolts();
+        EditorPanelModel.TextEntry r2 = entry("stages[0].feedbackOhms");
+        r2.textProperty().set("82k");
+        assertTrue(r2.commit());
+        double after = ladder().envelopeHighVolts() - ladder().quiescentVolts();
+        // non-inverting gain 1 + R2/R1 (standard op-amp result): (1 + 82/3.9) / (1 + 39/3.9) = 22.03/11
+        assertEquals((1 + 82 / 3.9) / (1 + 39 / 3.9), after / before, 0.02);
+        assertEquals(82e3, model.design().stages().get(0).feedbackOhms(), 1e-9);
+    }
+
+    @Test
+    void aGainThatRunsIntoTheRailBringsAHeadroomFindingOnTheEnvelope() {
+        assertFalse(model.findings().items().stream().anyMatch(f -> f.severity() == Severity.FAIL));
+        EditorPanelModel.TextEntry r2 = entry("stages[0].feedbackOhms");
+        // gain 1 + 150k/3.9k ≈ 39.5 puts 3.9 V peak on a 4.5 V rest point under a 7.5 V top: clips
+        r2.textProperty().set("150k");
+        r2.commit();
+        assertTrue(model.findings().items().stream()
+                .anyMatch(f -> f.severity() == Severity.FAIL && f.level().equals(Optional.of(LadderLevel.SIGNAL_ENVELOPE))),
+                () -> model.findings().items().toString());
+        assertTrue(ladder().clips());
+    }
+
+    @Test
+    void aBadValueIsRefusedAtTheFieldAndNeverReachesTheDesign() {
+        Design before = model.design();
+        int runs = sync.jobsRun();
+        EditorPanelModel.TextEntry r2 = entry("stages[0].feedbackOhms");
+        r2.textProperty().set("39 kq");
+        assertFalse(r2.problemProperty().get().isEmpty());
+        assertFalse(r2.commit());
+        r2.textProperty().set("-39k");
+        // the design model itself refuses a negative resistor, and the field shows its reason
+        assertTrue(r2.problemProperty().get().contains("stage.feedbackOhms"), r2.problemProperty().get());
+        assertFalse(r2.commit());
+        assertSame(before, model.design());
+        assertEquals(runs, sync.jobsRun(), "no analysis for a refused value");
+        r2.textProperty().set("47k");
+        assertEquals("", r2.problemProperty().get());
+    }
+
+    @Test
+    void aFractionalCellCountIsRefused() {
+        EditorPanelModel.TextEntry cells = entry("supply.cellsInSeries");
+        cells.textProperty().set("1.5");
+        assertTrue(cells.problemProperty().get().contains("whole number"));
+    }
+
+    @Test
+    void undoAndRedoWalkTheEditsBackAndForth() {
+        Design original = model.design();
+        double rest = ladder().envelopeHighVolts();
+        EditorPanelModel.TextEntry r1 = entry("stages[0].legOhms");
+        r1.textProperty().set("2k2");
+        r1.commit();
+        Design edited = model.design();
+        assertNotEquals(rest, ladder().envelopeHighVolts());
+        assertTrue(model.canUndoProperty().get());
+        model.undo();
+        assertSame(original, model.design());
+        assertEquals(rest, ladder().envelopeHighVolts(), 1e-12);
+        assertEquals("3.9 kΩ", r1.textProperty().get());
+        assertTrue(model.canRedoProperty().get());
+        model.redo();
+        assertSame(edited, model.design());
+        assertEquals("2.2 kΩ", r1.textProperty().get());
+    }
+
+    @Test
+    void aStaleAnalysisIsCancelledAndItsResultDropped() {
+        HeldExecutor held = new HeldExecutor();
+        WorkbenchModel m = new WorkbenchModel(held, SampleDesigns.instrumentBoost(), Optional.empty());
+        EditorPanelModel.TextEntry r2 = (EditorPanelModel.TextEntry) m.editor().field("stages[0].feedbackOhms").orElseThrow();
+        r2.textProperty().set("47k");
+        r2.commit();
+        r2.textProperty().set("56k");
+        r2.commit();
+        assertEquals(3, held.jobs.size());
+        assertTrue(held.jobs.get(0).cancelled());
+        assertTrue(held.jobs.get(1).cancelled());
+        assertFalse(held.jobs.get(2).cancelled());
+        held.jobs.get(2).finish();
+        DesignReport latest = m.reportProperty().get();
+        assertEquals(56e3, latest.design().stages().get(0).feedbackOhms(), 1e-9);
+        // even if an older job's work had finished, the generation check would drop it
+        held.jobs.get(1).cancel();
+        held.jobs.get(1).finish();
+        assertSame(latest, m.reportProperty().get());
+        assertFalse(m.analysingProperty().get());
+    }
+
+    @Test
+    void aDesignWithoutItsLegCapacitorShowsItsFailingFindings() {
+        model.replace(SampleDesigns.missingLegCapacitor(), null);
+        // with R1 DC-coupled to ground the stage amplifies its bias by 1 + R2/R1 = 11 (non-inverting gain rule),
+        // 4.5 V × 11 is far above the rail: the output sits on its upper limit
+        assertTrue(model.findings().items().stream().anyMatch(f -> f.code().equals("BIAS_AMPLIFIED")
+                && f.severity() == Severity.FAIL));
+        assertTrue(model.findings().items().stream().anyMatch(f -> f.code().equals("REST_ON_RAIL")));
+        assertEquals(Optional.of(Severity.FAIL), model.ladders().rungs().get(0).worst());
+        assertEquals("on a rail", model.readings().readings().get(0).headroom());
+        assertFalse(model.canUndoProperty().get(), "a replaced design starts a fresh history");
+    }
+
+    @Test
+    void selectingAFindingSpotlightsItsLadderLevelAndItsFields() {
+        model.replace(SampleDesigns.missingLegCapacitor(), null);
+        Finding bias = model.findings().items().stream().filter(f -> f.code().equals("BIAS_AMPLIFIED"))
+                .findFirst().orElseThrow();
+        model.findings().selectedProperty().set(bias);
+        LadderPanelModel.Focus focus = model.ladders().focusProperty().get();
+        assertEquals(bias.opAmp().orElseThrow(), focus.opAmp());
+        assertEquals(bias.level().orElseThrow(), focus.level());
+        assertTrue(model.editor().field("stages[0].legCapacitor.technology").orElseThrow().highlightedProperty().get());
+        assertFalse(model.editor().field("load.ohms").orElseThrow().highlightedProperty().get());
+        model.findings().selectedProperty().set(null);
+        assertEquals(null, model.ladders().focusProperty().get());
+    }
+
+    @Test
+    void pickingALadderLevelSelectsTheFindingAboutIt() {
+        model.replace(SampleDesigns.missingLegCapacitor(), null);
+        Finding rail = model.findings().items().stream().filter(f -> f.code().equals("REST_ON_RAIL"))
+                .findFirst().orElseThrow();
+        model.ladders().pick(rail.opAmp().orElseThrow(), rail.level().orElseThrow());
+        assertEquals(rail, model.findings().selectedProperty().get());
+    }
+
+    @Test
+    void stagesCanBeAddedReorderedAndRemovedEachAsOneUndoableEdit() {
+        model.editor().addStage();
+        assertEquals(2, model.design().stages().size());
+        assertEquals(2, model.ladders().rungs().size());
+        String second = model.design().stages().get(1).name();
+        model.editor().moveStage(1, -1);
+        assertEquals(second, model.design().stages().get(0).name());
+        assertTrue(model.editor().removeStage(0).isEmpty());
+        assertEquals(1, model.design().stages().size());
+        assertTrue(model.editor().removeStage(0).isPresent(), "a design keeps at least one stage");
+        model.undo();
+        model.undo();
+        model.undo();
+        assertEquals(SampleDesigns.instrumentBoost(), model.design());
+    }
+
+    @Test
+    void theSupplyTrialAnalysesAtTheChosenVoltageWithoutEditingTheDesign() {
+        Design d = model.design();
+        double endPoint = d.supply().lowVolts();
+        model.trialVoltsProperty().set(endPoint);
+        model.trialActiveProperty().set(true);
+        assertEquals(endPoint, ladder().supplyVolts(), 1e-9);
+        // the ladder keeps marking the design supply's own end-point
+        assertEquals(endPoint, model.ladders().rungs().get(0).endPointSupplyVolts(), 1e-9);
+        assertSame(d, model.design());
+        assertFalse(model.canUndoProperty().get());
+        model.trialActiveProperty().set(false);
+        assertEquals(d.supply().nominalVolts(), ladder().supplyVolts(), 1e-9);
+    }
+
+    @Test
+    void switchingTheSupplyKindRebuildsTheSupplyFields() {
+        EditorPanelModel.Choice kind = (EditorPanelModel.Choice) model.editor().field("supply").orElseThrow();
+        kind.choose(kind.options().stream().filter(o -> o.key().equals("fixed")).findFirst().orElseThrow());
+        assertTrue(model.editor().field("supply.volts").isPresent());
+        assertTrue(model.editor().field("supply.chemistry").isEmpty());
+        model.undo();
+        assertTrue(model.editor().field("supply.chemistry").isPresent());
+    }
+}
