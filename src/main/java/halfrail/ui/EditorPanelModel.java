@@ -259,6 +259,8 @@ public final class EditorPanelModel {
     private final WorkbenchModel workbench;
     private final PartsLibrary parts = PartsLibrary.builtIn();
     private final ObservableList<Section> sections = FXCollections.observableArrayList();
+    /** Read-only view kept as a field: list listeners hold it only weakly. */
+    private final ObservableList<Section> sectionsView = FXCollections.unmodifiableObservableList(sections);
     private String shape = "";
     private Design shown;
     private List<String> highlightedParts = List.of();
@@ -302,7 +304,7 @@ public final class EditorPanelModel {
     }
 
     public ObservableList<Section> sections() {
-        return FXCollections.unmodifiableObservableList(sections);
+        return sectionsView;
     }
 
     /** Every field, section by section. */

@@ -15,6 +15,8 @@ import java.util.List;
 /** The view-model of the findings list: the latest findings, most serious first, and the selected one. */
 public final class FindingsPanelModel {
     private final ObservableList<Finding> items = FXCollections.observableArrayList();
+    /** Read-only view kept as a field: list listeners hold it only weakly. */
+    private final ObservableList<Finding> itemsView = FXCollections.unmodifiableObservableList(items);
     private final ObjectProperty<Finding> selected = new SimpleObjectProperty<>(this, "selected");
     private final ReadOnlyStringWrapper tally = new ReadOnlyStringWrapper(this, "tally", "");
 
@@ -44,7 +46,7 @@ public final class FindingsPanelModel {
     }
 
     public ObservableList<Finding> items() {
-        return FXCollections.unmodifiableObservableList(items);
+        return itemsView;
     }
 
     /** The finding the user selected (null for none). */

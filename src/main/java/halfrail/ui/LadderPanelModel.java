@@ -48,6 +48,8 @@ public final class LadderPanelModel {
     }
 
     private final ObservableList<Rung> rungs = FXCollections.observableArrayList();
+    /** Read-only view kept as a field: list listeners hold it only weakly. */
+    private final ObservableList<Rung> rungsView = FXCollections.unmodifiableObservableList(rungs);
     private final ReadOnlyObjectWrapper<Focus> focus = new ReadOnlyObjectWrapper<>(this, "focus");
     private BiConsumer<String, LadderLevel> levelPicker = (a, b) -> { };
 
@@ -87,7 +89,7 @@ public final class LadderPanelModel {
     }
 
     public ObservableList<Rung> rungs() {
-        return FXCollections.unmodifiableObservableList(rungs);
+        return rungsView;
     }
 
     public ReadOnlyObjectProperty<Focus> focusProperty() {

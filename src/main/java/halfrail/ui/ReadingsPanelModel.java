@@ -28,7 +28,11 @@ public final class ReadingsPanelModel {
     public record Figure(String name, String value) {}
 
     private final ObservableList<Reading> readings = FXCollections.observableArrayList();
+    /** Read-only view kept as a field: list listeners hold it only weakly. */
+    private final ObservableList<Reading> readingsView = FXCollections.unmodifiableObservableList(readings);
     private final ObservableList<Figure> figures = FXCollections.observableArrayList();
+    /** Read-only view kept as a field: list listeners hold it only weakly. */
+    private final ObservableList<Figure> figuresView = FXCollections.unmodifiableObservableList(figures);
 
     void show(DesignReport r) {
         List<Reading> rows = new ArrayList<>();
@@ -96,10 +100,10 @@ public final class ReadingsPanelModel {
     }
 
     public ObservableList<Reading> readings() {
-        return FXCollections.unmodifiableObservableList(readings);
+        return readingsView;
     }
 
     public ObservableList<Figure> figures() {
-        return FXCollections.unmodifiableObservableList(figures);
+        return figuresView;
     }
 }

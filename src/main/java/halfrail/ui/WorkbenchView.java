@@ -188,6 +188,10 @@ public final class WorkbenchView extends BorderPane {
         return getScene() == null ? null : getScene().getWindow();
     }
 
+    public WorkbenchModel model() {
+        return model;
+    }
+
     public EditorPanel editor() {
         return editor;
     }
