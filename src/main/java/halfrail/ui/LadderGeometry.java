@@ -164,6 +164,14 @@ public final class LadderGeometry {
         return Math.max(plotTop - OVERSHOOT, Math.min(plotBottom + OVERSHOOT, y(volts)));
     }
 
+    /**
+     * As {@link #y(double)}, kept within {@link #OVERSHOOT} of the rails: an output can never go
+     * beyond them, so an unclipped excursion past a rail is drawn cut off just outside it.
+     */
+    public double railClampedY(double volts) {
+        return Math.max(y(ladder.supplyVolts()) - OVERSHOOT, Math.min(y(0) + OVERSHOOT, y(volts)));
+    }
+
     /** The voltage at vertical position {@code y}, V. */
     public double volts(double y) {
         return (plotBottom - y) / (plotBottom - plotTop) * scaleTopVolts;
@@ -203,7 +211,7 @@ public final class LadderGeometry {
 
     /** The signal envelope around the rest point, as drawn (cut off near the scale's ends). */
     public Span envelope() {
-        return new Span(clampedY(ladder.envelopeHighVolts()), clampedY(ladder.envelopeLowVolts()));
+        return new Span(railClampedY(ladder.envelopeHighVolts()), railClampedY(ladder.envelopeLowVolts()));
     }
 
     /** The part of the envelope above the swing window (clipping on the high side), if any. */
@@ -211,7 +219,7 @@ public final class LadderGeometry {
         if (ladder.envelopeHighVolts() <= ladder.swingHighVolts()) {
             return Optional.empty();
         }
-        return Optional.of(new Span(clampedY(ladder.envelopeHighVolts()), y(ladder.swingHighVolts())));
+        return Optional.of(new Span(railClampedY(ladder.envelopeHighVolts()), y(ladder.swingHighVolts())));
     }
 
     /** The part of the envelope below the swing window (clipping on the low side), if any. */
@@ -219,7 +227,7 @@ public final class LadderGeometry {
         if (ladder.envelopeLowVolts() >= ladder.swingLowVolts()) {
             return Optional.empty();
         }
-        return Optional.of(new Span(y(ladder.swingLowVolts()), clampedY(ladder.envelopeLowVolts())));
+        return Optional.of(new Span(y(ladder.swingLowVolts()), railClampedY(ladder.envelopeLowVolts())));
     }
 
     /** The rest point moved by limit leakage, px (equal to the rest point when there is no shift). */

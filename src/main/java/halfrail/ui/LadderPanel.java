@@ -21,7 +21,7 @@ public final class LadderPanel extends VBox {
         this.model = model;
         getStyleClass().add("ladder-panel");
         setId("ladders");
-        Label title = new Label("Voltage ladders — ground at the bottom, the rail at the top");
+        Label title = new Label("Voltage ladders, one per op-amp (0 V at the bottom, the rail at the top)");
         title.getStyleClass().add("panel-title");
         row.setPadding(new Insets(4));
         ScrollPane scroll = new ScrollPane(row);

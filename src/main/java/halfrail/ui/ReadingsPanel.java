@@ -19,12 +19,12 @@ public final class ReadingsPanel {
         stages.setId("readings");
         stages.setItems(model.readings());
         stages.getColumns().add(column("op-amp", ReadingsPanelModel.Reading::opAmp, 120));
-        stages.getColumns().add(column("rest point", ReadingsPanelModel.Reading::rest, 80));
-        stages.getColumns().add(column("swing window", ReadingsPanelModel.Reading::window, 130));
+        stages.getColumns().add(column("rest", ReadingsPanelModel.Reading::rest, 80));
+        stages.getColumns().add(column("window", ReadingsPanelModel.Reading::window, 130));
         stages.getColumns().add(column("headroom", ReadingsPanelModel.Reading::headroom, 80));
-        stages.getColumns().add(column("nearer limit", ReadingsPanelModel.Reading::nearer, 90));
+        stages.getColumns().add(column("nearer", ReadingsPanelModel.Reading::nearer, 90));
         stages.getColumns().add(column("bias gain", ReadingsPanelModel.Reading::biasGain, 80));
-        stages.getColumns().add(column("leakage shift", ReadingsPanelModel.Reading::leakageShift, 100));
+        stages.getColumns().add(column("leakage", ReadingsPanelModel.Reading::leakageShift, 100));
         stages.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
         stages.setPlaceholder(new Label("no numbers: the circuit could not be solved"));
         TableView<ReadingsPanelModel.Figure> figures = new TableView<>();
@@ -43,7 +43,7 @@ public final class ReadingsPanel {
         figuresBox.getStyleClass().add("readings-panel");
         VBox.setVgrow(stages, Priority.ALWAYS);
         VBox.setVgrow(figures, Priority.ALWAYS);
-        figuresBox.setPrefWidth(330);
+        figuresBox.setPrefWidth(300);
         figuresBox.setMinWidth(300);
     }
 

@@ -46,14 +46,15 @@ public final class WorkbenchView extends BorderPane {
         readings = new ReadingsPanel(model.readings());
         trial = new SupplyTrialBar(model);
 
-        HBox top = new HBox(8, ladders, readings.figuresBox());
-        HBox.setHgrow(ladders, Priority.ALWAYS);
-        VBox centre = new VBox(4, top, trial);
-        VBox.setVgrow(top, Priority.ALWAYS);
+        VBox centre = new VBox(4, ladders, trial);
+        VBox.setVgrow(ladders, Priority.ALWAYS);
         centre.setPadding(new Insets(4));
-        SplitPane middle = new SplitPane(centre, readings.stagesBox());
+        HBox numbers = new HBox(8, readings.stagesBox(), readings.figuresBox());
+        HBox.setHgrow(readings.stagesBox(), Priority.ALWAYS);
+        numbers.setPadding(new Insets(4));
+        SplitPane middle = new SplitPane(centre, numbers);
         middle.setOrientation(Orientation.VERTICAL);
-        middle.setDividerPositions(0.8);
+        middle.setDividerPositions(0.68);
         SplitPane main = new SplitPane(editor, middle, findings);
         main.setDividerPositions(0.22, 0.74);
         SplitPane.setResizableWithParent(editor, false);

@@ -125,6 +125,11 @@ class LadderGeometryTest {
         assertEquals(g.y(8), s.bottom(), 1e-9);
         assertEquals(g.y(9), s.top(), 1e-9);
         assertTrue(g.clippedLow().isEmpty());
+        // an excursion far past the rail is cut off just outside it
+        Ladder wild = new Ladder("wild", "stages[0]", 9, 6, 1, 8, 5, 0, 7.5, 4.5, 6, -20, 40,
+                OptionalDouble.empty(), OptionalDouble.empty(), 0);
+        LadderGeometry w = layout(wild);
+        assertEquals(w.y(9) - LadderGeometry.OVERSHOOT, w.envelope().top(), 1e-9);
     }
 
     @Test
@@ -133,7 +138,7 @@ class LadderGeometryTest {
                 OptionalDouble.empty(), OptionalDouble.empty(), 0);
         LadderGeometry g = layout(l);
         assertEquals(Side.LOW, g.clipSide().orElseThrow());
-        assertEquals(g.plotBottom() + LadderGeometry.OVERSHOOT, g.envelope().bottom(), 1e-9);
+        assertEquals(g.y(0) + LadderGeometry.OVERSHOOT, g.envelope().bottom(), 1e-9);
     }
 
     @Test

@@ -35,18 +35,30 @@ class RenderScreens {
 
     @Test
     void rendersTheMainWindowOnTheSampleDesign() throws Exception {
-        Path file = render(SampleDesigns.instrumentBoost(), null, "main-window.png");
+        Path file = render(SampleDesigns.instrumentBoost(), v -> { }, "main-window.png");
         assertTrue(Files.size(file) > 10_000, "a real picture, not an empty one");
     }
 
     @Test
     void rendersTheMainWindowOnTheFaultySample() throws Exception {
-        Path file = render(SampleDesigns.missingLegCapacitor(), "CLIPS", "main-window-faulty.png");
+        Path file = render(SampleDesigns.missingLegCapacitor(),
+                v -> v.findings().list().getSelectionModel().select(0), "main-window-faulty.png");
         assertTrue(Files.size(file) > 10_000);
     }
 
-    /** Render a window on {@code design}, selecting the first finding when {@code selectFirst} is given. */
-    static Path render(halfrail.design.Design design, String selectFirst, String name) throws Exception {
+    @Test
+    void rendersATwoStageDesignOnTheSupplyTrialAtTheEndPoint() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.model().editor().addStage();
+            v.model().trialVoltsProperty().set(v.model().trialLowVoltsProperty().get());
+            v.model().trialActiveProperty().set(true);
+        }, "main-window-trial.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    /** Render a window on {@code design} after {@code prepare} has acted on it (on the FX thread). */
+    static Path render(halfrail.design.Design design, java.util.function.Consumer<WorkbenchView> prepare, String name)
+            throws Exception {
         FxToolkit.registerPrimaryStage();
         WorkbenchView view = WaitForAsyncUtils.asyncFx(
                 () -> HalfrailApp.workbench(new SynchronousAnalysisExecutor(), design)).get(30, TimeUnit.SECONDS);
@@ -55,9 +67,7 @@ class RenderScreens {
             stage.setScene(scene);
             stage.show();
         });
-        if (selectFirst != null) {
-            WaitForAsyncUtils.asyncFx(() -> view.findings().list().getSelectionModel().select(0)).get();
-        }
+        WaitForAsyncUtils.asyncFx(() -> prepare.accept(view)).get(60, TimeUnit.SECONDS);
         WaitForAsyncUtils.waitForFxEvents();
         WritableImage image = WaitForAsyncUtils.asyncFx(() -> scene.snapshot(null)).get(30, TimeUnit.SECONDS);
         BufferedImage png = SwingFXUtils.fromFXImage(image, null);
