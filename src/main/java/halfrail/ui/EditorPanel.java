@@ -56,7 +56,7 @@ public final class EditorPanel extends ScrollPane {
     private void rebuild() {
         controls.clear();
         blocks.getChildren().clear();
-        Label title = new Label("Design");
+        Label title = new Label("Editor — type values like 4k7, 100n, 2.2 µ; Enter applies");
         title.getStyleClass().add("panel-title");
         blocks.getChildren().add(title);
         for (EditorPanelModel.Section s : model.sections()) {

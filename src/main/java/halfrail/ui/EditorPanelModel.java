@@ -11,6 +11,7 @@ import halfrail.design.OpAmpChoice;
 import halfrail.design.Reference;
 import halfrail.design.ReferenceKind;
 import halfrail.design.SignalSource;
+import halfrail.design.Thresholds;
 import halfrail.design.Stage;
 import halfrail.design.StageKind;
 import halfrail.design.Supply;
@@ -384,6 +385,7 @@ public final class EditorPanelModel {
 
     private List<Section> build(Design d) {
         List<Section> list = new ArrayList<>();
+        list.add(designSection());
         list.add(supplySection(d));
         list.add(referenceSection(d));
         for (int i = 0; i < d.stages().size(); i++) {
@@ -391,7 +393,63 @@ public final class EditorPanelModel {
         }
         list.add(sourceSection(d));
         list.add(loadSection(d));
+        list.add(limitsSection());
         return list;
+    }
+
+    private Section designSection() {
+        List<Field> f = new ArrayList<>();
+        f.add(new TextEntry(this, "title", "name", "", "A title of your own for the design.", Design::name,
+                (x, t) -> new Design(t.trim(), x.description(), x.supply(), x.reference(), x.stages(), x.source(),
+                        x.load(), x.thresholds(), x.powerOnRampSeconds())));
+        f.add(value("power-on ramp", "powerOnRampSeconds", Unit.SECOND,
+                "How long the supply takes to rise at switch-on (0 for a step).", Design::powerOnRampSeconds,
+                (x, v) -> new Design(x.name(), x.description(), x.supply(), x.reference(), x.stages(), x.source(),
+                        x.load(), x.thresholds(), v)));
+        return new Section("Design", "design", f, OptionalInt.empty(), "");
+    }
+
+    /** The check limits, in the order of {@link Thresholds}'s components. */
+    private Section limitsSection() {
+        List<Field> f = new ArrayList<>();
+        f.add(limit("least headroom, dB", "thresholds.minHeadroomDb", Unit.NONE, 2,
+                "Smallest acceptable room between the signal peaks and the swing limits.", 1));
+        f.add(limit("settle-up limit", "thresholds.maxSettleSeconds", Unit.SECOND, 1,
+                "Longest acceptable time from switch-on until every node has settled.", 1));
+        f.add(limit("settle band, %", "thresholds.settleBandFraction", Unit.NONE, 0,
+                "A node counts as settled within this share of the supply voltage.", 100));
+        f.add(limit("off-centre loss, dB", "thresholds.offCentreDb", Unit.NONE, 3,
+                "Headroom lost to an off-centre rest point above which a warning is raised.", 1));
+        f.add(limit("leakage shift limit", "thresholds.maxLeakageDriftVolts", Unit.VOLT, 5,
+                "Largest acceptable rest-point shift caused by capacitor leakage.", 1));
+        f.add(limit("ripple at output limit", "thresholds.maxRippleVolts", Unit.VOLT, 6,
+                "Largest acceptable supply ripple at the output, peak.", 1));
+        f.add(limit("power-on step limit", "thresholds.maxStepVolts", Unit.VOLT, 8,
+                "Largest acceptable step into the load at switch-on.", 1));
+        f.add(limit("stage gain limit", "thresholds.maxStageGain", Unit.NONE, 9,
+                "Gain of one stage above which it is flagged (common practice).", 1));
+        f.add(limit("feedback resistor limit", "thresholds.maxFeedbackOhms", Unit.OHM, 10,
+                "Feedback resistance above which a stage is flagged (common practice).", 1));
+        f.add(limit("runtime target, h", "thresholds.minRuntimeHours", Unit.NONE, 11,
+                "Runtime wanted from the supply's capacity (0 for none).", 1));
+        return new Section("Check limits", "thresholds", f, OptionalInt.empty(), "");
+    }
+
+    /** A field for component {@code index} of the thresholds, shown multiplied by {@code scale}. */
+    private TextEntry limit(String label, String path, Unit unit, int index, String help, double scale) {
+        return value(label, path, unit, help, x -> limits(x.thresholds())[index] * scale, (x, v) -> {
+            double[] all = limits(x.thresholds());
+            all[index] = v / scale;
+            return x.withThresholds(new Thresholds(all[0], all[1], all[2], all[3], all[4], all[5], all[6], all[7],
+                    all[8], all[9], all[10], all[11], all[12]));
+        });
+    }
+
+    private static double[] limits(Thresholds t) {
+        return new double[] {t.settleBandFraction(), t.maxSettleSeconds(), t.minHeadroomDb(), t.offCentreDb(),
+                t.nearRailFraction(), t.maxLeakageDriftVolts(), t.maxRippleVolts(), t.maxBiasShiftVolts(),
+                t.maxStepVolts(), t.maxStageGain(), t.maxFeedbackOhms(), t.minRuntimeHours(),
+                t.capacitorDeratingOverride()};
     }
 
     private Section supplySection(Design d) {

@@ -91,6 +91,31 @@ public final class ReadingsPanelModel {
         list.add(new Figure("power-on step at the load", EngineeringValue.format(p.loadStepVolts(), Unit.VOLT)));
     }
 
+    /**
+     * The op-amp readings and the design figures as CSV (RFC 4180: comma-separated, fields with a
+     * comma, quote or line break quoted, quotes doubled), op-amps first, then a blank line and the figures.
+     */
+    public String csv() {
+        StringBuilder b = new StringBuilder();
+        b.append("op-amp,rest point,swing window,headroom,nearer limit,bias gain,leakage shift\r\n");
+        for (Reading r : readings) {
+            b.append(String.join(",", quote(r.opAmp()), quote(r.rest()), quote(r.window()), quote(r.headroom()),
+                    quote(r.nearer()), quote(r.biasGain()), quote(r.leakageShift()))).append("\r\n");
+        }
+        b.append("\r\nfigure,value\r\n");
+        for (Figure f : figures) {
+            b.append(quote(f.name())).append(',').append(quote(f.value())).append("\r\n");
+        }
+        return b.toString();
+    }
+
+    static String quote(String field) {
+        if (field.contains(",") || field.contains("\"") || field.contains("\n") || field.contains("\r")) {
+            return '"' + field.replace("\"", "\"\"") + '"';
+        }
+        return field;
+    }
+
     static String v(double volts) {
         return String.format(Locale.ROOT, "%.2f V", volts);
     }

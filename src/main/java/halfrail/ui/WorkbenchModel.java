@@ -259,6 +259,27 @@ public final class WorkbenchModel {
         }, e -> status.set("Could not save " + path.getFileName() + ": " + e.getMessage()));
     }
 
+    /** Something written to a file off the FX thread. */
+    @FunctionalInterface
+    public interface FileWriting {
+        void write(Path file) throws java.io.IOException;
+    }
+
+    /** Write {@code what} (named in the status line) to {@code path} in the background. */
+    public void export(String what, Path path, FileWriting writing) {
+        executor.submit(() -> {
+            writing.write(path);
+            return path;
+        }, p -> status.set("Wrote " + what + " to " + p.getFileName()),
+                e -> status.set("Could not write " + what + ": " + e.getMessage()));
+    }
+
+    /** Write the readings and figures as CSV to {@code path} in the background. */
+    public void exportReadings(Path path) {
+        String text = readings.csv();
+        export("the readings", path, p -> java.nio.file.Files.writeString(p, text, java.nio.charset.StandardCharsets.UTF_8));
+    }
+
     // ---- properties ------------------------------------------------------------------------
 
     public ReadOnlyObjectProperty<Design> designProperty() {

@@ -112,7 +112,14 @@ public final class WorkbenchView extends BorderPane {
                 getScene().getWindow().hide();
             }
         });
-        design.getItems().addAll(samples, new SeparatorMenuItem(), open, save, saveAs, new SeparatorMenuItem(), quit);
+        MenuItem csv = new MenuItem("Export the readings as CSV…");
+        csv.setOnAction(e -> exportReadings());
+        MenuItem picture = new MenuItem("Save a picture of the ladders…");
+        picture.setOnAction(e -> savePicture(ladders, "ladders.png"));
+        MenuItem window = new MenuItem("Save a picture of the window…");
+        window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
+        design.getItems().addAll(samples, new SeparatorMenuItem(), open, save, saveAs, new SeparatorMenuItem(), csv,
+                picture, window, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");
         MenuItem undo = new MenuItem();
@@ -174,6 +181,29 @@ public final class WorkbenchView extends BorderPane {
         File f = chooser("Save the design").showSaveDialog(window());
         if (f != null) {
             model.saveAs(f.toPath());
+        }
+    }
+
+    private void exportReadings() {
+        FileChooser c = new FileChooser();
+        c.setTitle("Export the readings");
+        c.setInitialFileName("readings.csv");
+        c.getExtensionFilters().add(new FileChooser.ExtensionFilter("CSV", "*.csv"));
+        File f = c.showSaveDialog(window());
+        if (f != null) {
+            model.exportReadings(f.toPath());
+        }
+    }
+
+    private void savePicture(javafx.scene.Node node, String name) {
+        FileChooser c = new FileChooser();
+        c.setTitle("Save a picture");
+        c.setInitialFileName(name);
+        c.getExtensionFilters().add(new FileChooser.ExtensionFilter("PNG", "*.png"));
+        File f = c.showSaveDialog(window());
+        if (f != null) {
+            java.awt.image.BufferedImage image = javafx.embed.swing.SwingFXUtils.fromFXImage(node.snapshot(null, null), null);
+            model.export("the picture", f.toPath(), p -> javax.imageio.ImageIO.write(image, "png", p.toFile()));
         }
     }
 

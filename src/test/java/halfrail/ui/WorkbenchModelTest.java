@@ -215,4 +215,28 @@ class WorkbenchModelTest {
         model.undo();
         assertTrue(model.editor().field("supply.chemistry").isPresent());
     }
+
+    @Test
+    void aTighterHeadroomLimitRaisesAFindingWithoutChangingTheCircuit() {
+        assertTrue(model.findings().items().stream().noneMatch(f -> f.code().equals("HEADROOM_LOW")));
+        EditorPanelModel.TextEntry least = entry("thresholds.minHeadroomDb");
+        assertEquals("3", least.textProperty().get());
+        // the sample has about 8.9 dB of headroom (see the readings); asking for 12 dB must flag it
+        least.textProperty().set("12");
+        assertTrue(least.commit());
+        assertEquals(12, model.design().thresholds().minHeadroomDb(), 1e-12);
+        assertTrue(model.findings().items().stream().anyMatch(f -> f.code().equals("HEADROOM_LOW")),
+                () -> model.findings().items().toString());
+    }
+
+    @Test
+    void theReadingsExportAsCsvWithQuotedFields() {
+        String csv = model.readings().csv();
+        String[] lines = csv.split("\r\n", -1);
+        assertEquals("op-amp,rest point,swing window,headroom,nearer limit,bias gain,leakage shift", lines[0]);
+        assertTrue(lines[1].startsWith("boost,4.50 V,"), lines[1]);
+        // RFC 4180 §2: a field containing a quote is quoted and the quote doubled
+        assertEquals("\"say \"\"hi\"\", twice\"", ReadingsPanelModel.quote("say \"hi\", twice"));
+        assertEquals("plain", ReadingsPanelModel.quote("plain"));
+    }
 }
