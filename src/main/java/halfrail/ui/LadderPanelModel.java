@@ -75,6 +75,10 @@ public final class LadderPanelModel {
         rungs.setAll(list);
     }
 
+    void clear() {
+        rungs.clear();
+    }
+
     void highlight(Focus f) {
         focus.set(f);
     }

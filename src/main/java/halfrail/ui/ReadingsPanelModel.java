@@ -34,6 +34,11 @@ public final class ReadingsPanelModel {
     /** Read-only view kept as a field: list listeners hold it only weakly. */
     private final ObservableList<Figure> figuresView = FXCollections.unmodifiableObservableList(figures);
 
+    void clear() {
+        readings.clear();
+        figures.clear();
+    }
+
     void show(DesignReport r) {
         List<Reading> rows = new ArrayList<>();
         for (StageReport s : r.stages()) {

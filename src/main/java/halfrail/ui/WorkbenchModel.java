@@ -24,6 +24,7 @@ import javafx.beans.property.SimpleDoubleProperty;
 import javafx.beans.property.SimpleObjectProperty;
 
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.function.UnaryOperator;
@@ -39,6 +40,9 @@ import java.util.function.UnaryOperator;
  * overwrites a newer one. The running job is cancelled when a newer one starts.
  */
 public final class WorkbenchModel {
+    /** Code of the finding shown when the analysis itself failed (the app's own; not from the checks catalogue). */
+    public static final String NOT_ANALYSED = "NOT_ANALYSED";
+
     private final AnalysisExecutor executor;
     private final Optional<DesignFileActions> files;
     private final EditHistory history = new EditHistory();
@@ -187,8 +191,7 @@ public final class WorkbenchModel {
                 e -> {
                     if (mine == generation) {
                         running = null;
-                        analysing.set(false);
-                        status.set("Analysis stopped: " + e.getMessage());
+                        refuse(e);
                     }
                 });
     }
@@ -206,6 +209,23 @@ public final class WorkbenchModel {
         status.set(String.format("Analysed%s: %d op-amp%s, %d failing, %d warning%s, %d finding%s in all",
                 where, r.ladders().size(), r.ladders().size() == 1 ? "" : "s", fails, warns,
                 warns == 1 ? "" : "s", r.findings().size(), r.findings().size() == 1 ? "" : "s"));
+    }
+
+    /**
+     * The analysis threw instead of reporting (a design the check layer refuses, such as an
+     * unknown part id): clear the ladders and list the reason as a failing finding, pointing at
+     * the field when the error names one, so that nothing stale stays on screen.
+     */
+    private void refuse(Throwable e) {
+        analysing.set(false);
+        report.set(null);
+        List<String> parts = e instanceof DesignException de ? List.of(de.path()) : List.of();
+        Finding f = new Finding(NOT_ANALYSED, Severity.FAIL, "the design could not be analysed: " + e.getMessage(),
+                parts, "correct the value named here", Optional.empty(), Optional.empty());
+        ladders.clear();
+        findings.show(List.of(f));
+        readings.clear();
+        status.set("Not analysed: " + e.getMessage());
     }
 
     /** The generation number of the latest analysis started (grows by one per analysis). */

@@ -10,6 +10,7 @@ final class HeldExecutor implements AnalysisExecutor {
     /** One held job. */
     final class Held implements Job {
         private final Runnable run;
+        private Consumer<Throwable> failure;
         private boolean cancelled;
 
         Held(Runnable run) {
@@ -48,8 +49,17 @@ final class HeldExecutor implements AnalysisExecutor {
             }
             onResult.accept(r);
         });
+        h.failure = onFailure;
         jobs.add(h);
         return h;
+    }
+
+    /** Deliver {@code error} as job {@code index}'s failure instead of running its work. */
+    void fail(int index, Throwable error) {
+        Held h = jobs.get(index);
+        if (!h.cancelled) {
+            h.failure.accept(error);
+        }
     }
 
     @Override

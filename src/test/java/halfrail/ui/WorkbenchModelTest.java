@@ -239,4 +239,22 @@ class WorkbenchModelTest {
         assertEquals("\"say \"\"hi\"\", twice\"", ReadingsPanelModel.quote("say \"hi\", twice"));
         assertEquals("plain", ReadingsPanelModel.quote("plain"));
     }
+
+    @Test
+    void anAnalysisThatThrowsClearsTheLaddersAndListsTheReasonAtItsField() {
+        // a held executor lets the test hand the model a failure, as a check-layer refusal would arrive
+        HeldExecutor held = new HeldExecutor();
+        WorkbenchModel m = new WorkbenchModel(held, SampleDesigns.instrumentBoost(), Optional.empty());
+        held.jobs.get(0).finish();
+        assertEquals(1, m.ladders().rungs().size());
+        EditorPanelModel.TextEntry r1 = (EditorPanelModel.TextEntry) m.editor().field("stages[0].legOhms").orElseThrow();
+        r1.textProperty().set("4k7");
+        r1.commit();
+        held.fail(1, new halfrail.design.DesignException("stages[0].legOhms", "refused for the test"));
+        assertTrue(m.ladders().rungs().isEmpty());
+        Finding f = m.findings().items().get(0);
+        assertEquals(WorkbenchModel.NOT_ANALYSED, f.code());
+        m.findings().selectedProperty().set(f);
+        assertTrue(m.editor().field("stages[0].legOhms").orElseThrow().highlightedProperty().get());
+    }
 }
