@@ -56,9 +56,12 @@ public final class EditorPanel extends ScrollPane {
     private void rebuild() {
         controls.clear();
         blocks.getChildren().clear();
-        Label title = new Label("Editor — type values like 4k7, 100n, 2.2 µ; Enter applies");
+        Label title = new Label("Design editor");
         title.getStyleClass().add("panel-title");
-        blocks.getChildren().add(title);
+        Label hint = new Label("Type values like 4k7, 100n or 2.2 µ; Enter or leaving the field applies, Esc restores.");
+        hint.setWrapText(true);
+        hint.getStyleClass().add("hint");
+        blocks.getChildren().addAll(title, hint);
         for (EditorPanelModel.Section s : model.sections()) {
             blocks.getChildren().add(block(s));
             if (s.path().equals("stages[" + lastStage() + "]")) {

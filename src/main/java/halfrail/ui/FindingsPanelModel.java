@@ -45,6 +45,12 @@ public final class FindingsPanelModel {
         }
     }
 
+    /** Select the most serious finding about the design part at {@code path} (findings are sorted most serious first). */
+    void selectFirstAbout(String path) {
+        items.stream().filter(f -> f.parts().stream().anyMatch(p -> EditorPanelModel.concerns(p, path) || EditorPanelModel.concerns(path, p)))
+                .findFirst().ifPresent(selected::set);
+    }
+
     public ObservableList<Finding> items() {
         return itemsView;
     }

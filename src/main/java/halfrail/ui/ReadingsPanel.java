@@ -23,7 +23,7 @@ public final class ReadingsPanel {
         stages.getColumns().add(column("window", ReadingsPanelModel.Reading::window, 130));
         stages.getColumns().add(column("headroom", ReadingsPanelModel.Reading::headroom, 80));
         stages.getColumns().add(column("nearer", ReadingsPanelModel.Reading::nearer, 90));
-        stages.getColumns().add(column("bias gain", ReadingsPanelModel.Reading::biasGain, 80));
+        stages.getColumns().add(column("bias ×", ReadingsPanelModel.Reading::biasGain, 80));
         stages.getColumns().add(column("leakage", ReadingsPanelModel.Reading::leakageShift, 100));
         stages.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
         stages.setPlaceholder(new Label("no numbers: the circuit could not be solved"));
@@ -43,8 +43,8 @@ public final class ReadingsPanel {
         figuresBox.getStyleClass().add("readings-panel");
         VBox.setVgrow(stages, Priority.ALWAYS);
         VBox.setVgrow(figures, Priority.ALWAYS);
-        figuresBox.setPrefWidth(300);
-        figuresBox.setMinWidth(300);
+        figuresBox.setPrefWidth(270);
+        figuresBox.setMinWidth(250);
     }
 
     /** The op-amp readings table with its title. */

@@ -51,7 +51,7 @@ public final class ReadingsPanelModel {
                 head = String.format(Locale.ROOT, "%.1f dB", s.nominal().headroomDb());
             }
             rows.add(new Reading(s.label(), v(s.outputVolts()),
-                    v(s.nominal().swingLowVolts()) + " … " + v(s.nominal().swingHighVolts()), head,
+                    String.format(Locale.ROOT, "%.2f–%.2f V", s.nominal().swingLowVolts(), s.nominal().swingHighVolts()), head,
                     s.signal() ? (s.nominal().clipsFirst() == Side.HIGH ? "top" : "floor") : "—",
                     String.format(Locale.ROOT, "%.3g", s.biasGain()), signed(s.leakageDriftVolts())));
         }

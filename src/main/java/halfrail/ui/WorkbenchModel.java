@@ -68,6 +68,7 @@ public final class WorkbenchModel {
     private final LadderPanelModel ladders = new LadderPanelModel();
     private final FindingsPanelModel findings = new FindingsPanelModel();
     private final ReadingsPanelModel readings = new ReadingsPanelModel();
+    private final ChainPanelModel chain = new ChainPanelModel();
     private final EditorPanelModel editor;
 
     private long generation;
@@ -80,6 +81,7 @@ public final class WorkbenchModel {
         this.editor = new EditorPanelModel(this);
         findings.selectedProperty().addListener((o, was, now) -> focusOn(now));
         ladders.setLevelPicker((opAmp, level) -> findings.selectFirst(opAmp, level));
+        chain.setPicker(findings::selectFirstAbout);
         trialActive.addListener((o, was, now) -> analyse());
         trialVolts.addListener((o, was, now) -> {
             if (trialActive.get()) {
@@ -203,6 +205,7 @@ public final class WorkbenchModel {
         ladders.show(r, s.highVolts(), s.lowVolts());
         findings.show(r.findings());
         readings.show(r);
+        chain.show(r);
         long fails = r.findings().stream().filter(f -> f.severity() == Severity.FAIL).count();
         long warns = r.findings().stream().filter(f -> f.severity() == Severity.WARN).count();
         String where = trialActive.get() ? String.format(" at a trial supply of %.2f V", trialVolts.get()) : "";
@@ -223,6 +226,7 @@ public final class WorkbenchModel {
         Finding f = new Finding(NOT_ANALYSED, Severity.FAIL, "the design could not be analysed: " + e.getMessage(),
                 parts, "correct the value named here", Optional.empty(), Optional.empty());
         ladders.clear();
+        chain.clear();
         findings.show(List.of(f));
         readings.clear();
         status.set("Not analysed: " + e.getMessage());
@@ -237,10 +241,12 @@ public final class WorkbenchModel {
         if (f == null) {
             ladders.highlight(null);
             editor.highlight(java.util.List.of());
+            chain.spotlight(java.util.List.of());
             return;
         }
         ladders.highlight(f.opAmp().map(op -> new LadderPanelModel.Focus(op, f.level().orElse(null))).orElse(null));
         editor.highlight(f.parts());
+        chain.spotlight(f.parts());
     }
 
     // ---- files -----------------------------------------------------------------------------
@@ -380,6 +386,10 @@ public final class WorkbenchModel {
 
     public ReadingsPanelModel readings() {
         return readings;
+    }
+
+    public ChainPanelModel chain() {
+        return chain;
     }
 
     public EditorPanelModel editor() {

@@ -35,6 +35,7 @@ public final class WorkbenchView extends BorderPane {
     private final FindingsPanel findings;
     private final ReadingsPanel readings;
     private final SupplyTrialBar trial;
+    private final ChainCanvas chain;
     private final Label status = new Label();
 
     public WorkbenchView(WorkbenchModel model) {
@@ -46,7 +47,8 @@ public final class WorkbenchView extends BorderPane {
         readings = new ReadingsPanel(model.readings());
         trial = new SupplyTrialBar(model);
 
-        VBox centre = new VBox(4, ladders, trial);
+        chain = new ChainCanvas(model.chain());
+        VBox centre = new VBox(4, chain, ladders, trial);
         VBox.setVgrow(ladders, Priority.ALWAYS);
         centre.setPadding(new Insets(4));
         HBox numbers = new HBox(8, readings.stagesBox(), readings.figuresBox());
@@ -56,7 +58,7 @@ public final class WorkbenchView extends BorderPane {
         middle.setOrientation(Orientation.VERTICAL);
         middle.setDividerPositions(0.68);
         SplitPane main = new SplitPane(editor, middle, findings);
-        main.setDividerPositions(0.22, 0.74);
+        main.setDividerPositions(0.2, 0.75);
         SplitPane.setResizableWithParent(editor, false);
         editor.setMinWidth(280);
         findings.setMinWidth(300);
@@ -237,6 +239,10 @@ public final class WorkbenchView extends BorderPane {
 
     public ReadingsPanel readings() {
         return readings;
+    }
+
+    public ChainCanvas chain() {
+        return chain;
     }
 
     public SupplyTrialBar trial() {

@@ -257,4 +257,21 @@ class WorkbenchModelTest {
         m.findings().selectedProperty().set(f);
         assertTrue(m.editor().field("stages[0].legOhms").orElseThrow().highlightedProperty().get());
     }
+
+    @Test
+    void theChainDrawingShowsEachStagesDcVoltagesAndLeadsToItsFindings() {
+        ChainPanelModel.Block stage = model.chain().blocks().stream()
+                .filter(b -> b.kind() == ChainPanelModel.Kind.STAGE).findFirst().orElseThrow();
+        // unity bias gain: the output rests at the 4.5 V mid-rail of the equal divider (voltage-divider rule)
+        assertTrue(stage.lines().contains("out at rest 4.50 V"), stage.lines().toString());
+        assertTrue(stage.lines().get(0).contains("gain 11"), "1 + 39k/3.9k = 11 (non-inverting gain rule)");
+        model.replace(SampleDesigns.missingLegCapacitor(), null);
+        ChainPanelModel.Block broken = model.chain().blocks().stream()
+                .filter(b -> b.path().equals("stages[0]")).findFirst().orElseThrow();
+        assertEquals(Optional.of(Severity.FAIL), broken.worst());
+        model.chain().pick("stages[0]");
+        Finding picked = model.findings().selectedProperty().get();
+        assertEquals(Severity.FAIL, picked.severity());
+        assertTrue(model.chain().isSpotlit("stages[0]"));
+    }
 }
