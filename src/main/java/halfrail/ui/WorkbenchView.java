@@ -58,7 +58,7 @@ public final class WorkbenchView extends BorderPane {
         middle.setOrientation(Orientation.VERTICAL);
         middle.setDividerPositions(0.68);
         SplitPane main = new SplitPane(editor, middle, findings);
-        main.setDividerPositions(0.2, 0.75);
+        main.setDividerPositions(0.235, 0.755);
         SplitPane.setResizableWithParent(editor, false);
         editor.setMinWidth(280);
         findings.setMinWidth(300);
@@ -94,6 +94,14 @@ public final class WorkbenchView extends BorderPane {
         samples.getItems().addAll(
                 sample("Instrument boost, 9 V", SampleDesigns::instrumentBoost),
                 sample("Instrument boost without its leg capacitor (faulty)", SampleDesigns::missingLegCapacitor));
+        Menu fresh = new Menu("New from a template");
+        for (halfrail.design.StageKind sk : halfrail.design.StageKind.values()) {
+            Menu byStage = new Menu(DesignTemplates.words(sk) + " stage");
+            for (halfrail.design.ReferenceKind rk : halfrail.design.ReferenceKind.values()) {
+                byStage.getItems().add(sample("… with a " + DesignTemplates.words(rk), () -> DesignTemplates.of(sk, rk)));
+            }
+            fresh.getItems().add(byStage);
+        }
         MenuItem open = new MenuItem("Open…");
         open.setAccelerator(KeyCombination.keyCombination("Shortcut+O"));
         open.setOnAction(e -> openFile());
@@ -120,7 +128,7 @@ public final class WorkbenchView extends BorderPane {
         picture.setOnAction(e -> savePicture(ladders, "ladders.png"));
         MenuItem window = new MenuItem("Save a picture of the window…");
         window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
-        design.getItems().addAll(samples, new SeparatorMenuItem(), open, save, saveAs, new SeparatorMenuItem(), csv,
+        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, save, saveAs, new SeparatorMenuItem(), csv,
                 picture, window, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");
