@@ -21,6 +21,8 @@ public final class ChainCanvas extends Region {
     private final ChainPanelModel model;
     private final Canvas canvas = new Canvas();
     private ChainGeometry geometry;
+    private final javafx.beans.property.ObjectProperty<Palette> palette =
+            new javafx.beans.property.SimpleObjectProperty<>(this, "palette", Palette.LIGHT);
 
     public ChainCanvas(ChainPanelModel model) {
         this.model = model;
@@ -32,11 +34,21 @@ public final class ChainCanvas extends Region {
         setMaxHeight(HEIGHT);
         model.blocks().addListener((ListChangeListener<ChainPanelModel.Block>) c -> repaint());
         model.spotlitProperty().addListener((o, was, now) -> repaint());
+        palette.addListener((o, was, now) -> repaint());
         setOnMouseClicked(e -> {
             if (geometry != null) {
                 geometry.hit(e.getX(), e.getY()).ifPresent(p -> model.pick(p.block().path()));
             }
         });
+    }
+
+    /** The colours to paint with. */
+    public javafx.beans.property.ObjectProperty<Palette> paletteProperty() {
+        return palette;
+    }
+
+    private Palette pal() {
+        return palette.get();
     }
 
     /** The geometry last painted; null before the first layout. */
@@ -55,7 +67,7 @@ public final class ChainCanvas extends Region {
         double w = getWidth();
         double h = getHeight();
         GraphicsContext g = canvas.getGraphicsContext2D();
-        g.setFill(LadderCanvas.PAPER);
+        g.setFill(pal().paper());
         g.fillRect(0, 0, w, h);
         if (w <= 0 || h <= 0) {
             return;
@@ -63,8 +75,8 @@ public final class ChainCanvas extends Region {
         ChainGeometry geo = new ChainGeometry(model.blocks(), w, h);
         geometry = geo;
         List<ChainGeometry.Placed> row = geo.row();
-        g.setStroke(LadderCanvas.INK);
-        g.setFill(LadderCanvas.INK);
+        g.setStroke(pal().ink());
+        g.setFill(pal().ink());
         g.setLineWidth(1.4);
         for (int i = 0; i + 1 < row.size(); i++) {
             ChainGeometry.Placed a = row.get(i);
@@ -76,7 +88,7 @@ public final class ChainCanvas extends Region {
             g.fillPolygon(new double[] {x1 - 8, x1 - 1, x1 - 8}, new double[] {y - 4, y, y + 4}, 3);
         }
         geo.reference().ifPresent(ref -> {
-            g.setStroke(LadderCanvas.MID);
+            g.setStroke(pal().mid());
             g.setLineDashes(10, 3, 2, 3);
             g.setLineWidth(1.2);
             for (ChainGeometry.Placed s : geo.stages()) {
@@ -93,11 +105,11 @@ public final class ChainCanvas extends Region {
     private void block(GraphicsContext g, ChainGeometry.Placed p) {
         ChainPanelModel.Block b = p.block();
         boolean lit = model.isSpotlit(b.path());
-        Color edge = b.worst().map(s -> s == Severity.FAIL ? LadderCanvas.FAIL
-                : s == Severity.WARN ? LadderCanvas.WARN : LadderCanvas.FAINT).orElse(LadderCanvas.FAINT);
-        g.setFill(lit ? Color.web("#fff3c4") : Color.WHITE);
+        Color edge = b.worst().map(s -> s == Severity.FAIL ? pal().fail()
+                : s == Severity.WARN ? pal().warn() : pal().faint()).orElse(pal().faint());
+        g.setFill(lit ? pal().litBlock() : pal().block());
         g.fillRoundRect(p.x(), p.y(), p.width(), p.height(), 10, 10);
-        g.setStroke(lit ? LadderCanvas.WARN : edge);
+        g.setStroke(lit ? pal().warn() : edge);
         g.setLineWidth(lit || b.worst().filter(s -> s != Severity.NOTE).isPresent() ? 2.2 : 1);
         g.strokeRoundRect(p.x(), p.y(), p.width(), p.height(), 10, 10);
         g.save();
@@ -106,7 +118,7 @@ public final class ChainCanvas extends Region {
         g.clip();
         g.setTextAlign(TextAlignment.LEFT);
         g.setTextBaseline(VPos.TOP);
-        g.setFill(LadderCanvas.INK);
+        g.setFill(pal().ink());
         boolean lane = b.kind() == ChainPanelModel.Kind.REFERENCE;
         g.setFont(Font.font("System", FontWeight.BOLD, 11));
         double x = p.x() + 7;

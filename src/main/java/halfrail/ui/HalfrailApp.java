@@ -33,6 +33,7 @@ public class HalfrailApp extends Application {
     public void start(Stage stage) {
         executor = new BackgroundAnalysisExecutor();
         model = new WorkbenchModel(executor, SampleDesigns.instrumentBoost(), fileActions);
+        model.darkProperty().set(systemPrefersDark(System.getenv("GTK_THEME")));
         WorkbenchView view = new WorkbenchView(model);
         stage.setTitle("Halfrail — single-supply stage checker");
         stage.setScene(scene(view));
@@ -42,6 +43,15 @@ public class HalfrailApp extends Application {
             }
         });
         stage.show();
+    }
+
+    /**
+     * Whether the desktop asks for a dark appearance. JavaFX 17 does not report the system's
+     * choice, so this reads the GTK theme variable, whose {@code :dark} suffix selects a theme's
+     * dark variant (GTK 3 documentation, "Running and debugging GTK applications").
+     */
+    static boolean systemPrefersDark(String gtkTheme) {
+        return gtkTheme != null && gtkTheme.toLowerCase(java.util.Locale.ROOT).endsWith(":dark");
     }
 
     @Override

@@ -29,27 +29,11 @@ import java.util.function.BiConsumer;
  * about it.
  */
 public final class LadderCanvas extends Region {
-    static final Color PAPER = Color.web("#fbfaf7");
-    static final Color INK = Color.web("#2b2d31");
-    static final Color FAINT = Color.web("#8a8f98");
-    static final Color WINDOW = Color.web("#e3f1ec");
-    static final Color FORBIDDEN = Color.web("#e9e4dc");
-    static final Color HATCH = Color.web("#b9ab98");
-    static final Color CLIP = Color.web("#d7401f");
-    static final Color SIGNAL = Color.web("#3b3f9e");
-    static final Color LEAK = Color.web("#b8860b");
-    static final Color SPREAD = Color.web("#138a7e");
-    static final Color COMMON_MODE = Color.web("#8a4f7d");
-    static final Color END_POINT = Color.web("#9c5a2c");
-    static final Color MID = Color.web("#5f7486");
-    static final Color SPOTLIGHT = Color.web("#ffd84d", 0.55);
-    static final Color FAIL = Color.web("#c2331a");
-    static final Color WARN = Color.web("#c98a00");
-    static final Color PASS = Color.web("#2f8f5b");
 
     private final Canvas canvas = new Canvas();
     private final ObjectProperty<LadderPanelModel.Rung> rung = new SimpleObjectProperty<>(this, "rung");
     private final ObjectProperty<LadderLevel> spotlight = new SimpleObjectProperty<>(this, "spotlight");
+    private final ObjectProperty<Palette> palette = new SimpleObjectProperty<>(this, "palette", Palette.LIGHT);
     private final Tooltip tip = new Tooltip();
     private LadderGeometry geometry;
     private BiConsumer<String, LadderLevel> onPick = (a, b) -> { };
@@ -62,6 +46,7 @@ public final class LadderCanvas extends Region {
         setMinHeight(260);
         rung.addListener((o, was, now) -> repaint());
         spotlight.addListener((o, was, now) -> repaint());
+        palette.addListener((o, was, now) -> repaint());
         Tooltip.install(this, tip);
         setOnMouseMoved(e -> describe(e.getX(), e.getY()));
         setOnMouseClicked(e -> {
@@ -77,6 +62,15 @@ public final class LadderCanvas extends Region {
 
     public ObjectProperty<LadderPanelModel.Rung> rungProperty() {
         return rung;
+    }
+
+    /** The colours to paint with. */
+    public ObjectProperty<Palette> paletteProperty() {
+        return palette;
+    }
+
+    private Palette pal() {
+        return palette.get();
     }
 
     public ObjectProperty<LadderLevel> spotlightProperty() {
@@ -137,7 +131,7 @@ public final class LadderCanvas extends Region {
         GraphicsContext g = canvas.getGraphicsContext2D();
         double w = getWidth();
         double h = getHeight();
-        g.setFill(PAPER);
+        g.setFill(pal().paper());
         g.fillRect(0, 0, w, h);
         LadderPanelModel.Rung r = rung.get();
         if (r == null || w <= 0 || h <= 0) {
@@ -152,9 +146,9 @@ public final class LadderCanvas extends Region {
         g.setTextBaseline(VPos.CENTER);
         g.setTextAlign(TextAlignment.LEFT);
         g.setFont(Font.font("System", FontWeight.BOLD, 13));
-        g.setFill(INK);
+        g.setFill(pal().ink());
         g.fillText(l.opAmp(), 8, 13);
-        Color verdict = r.worst().map(s -> s == Severity.FAIL ? FAIL : s == Severity.WARN ? WARN : PASS).orElse(PASS);
+        Color verdict = r.worst().map(s -> s == Severity.FAIL ? pal().fail() : s == Severity.WARN ? pal().warn() : pal().pass()).orElse(pal().pass());
         String word = r.worst().map(s -> s == Severity.FAIL ? "fails" : s == Severity.WARN ? "marginal" : "fine")
                 .orElse("fine");
         g.setFont(Font.font("System", FontWeight.BOLD, 10));
@@ -169,14 +163,14 @@ public final class LadderCanvas extends Region {
         LadderGeometry.Column out = geo.output();
 
         // shafts: usable window, then forbidden bands with hatching
-        g.setFill(WINDOW);
+        g.setFill(pal().window());
         g.fillRect(in.left(), geo.y(l.supplyVolts()), in.width(), geo.y(0) - geo.y(l.supplyVolts()));
         g.fillRect(out.left(), geo.y(l.supplyVolts()), out.width(), geo.y(0) - geo.y(l.supplyVolts()));
         band(g, in, geo.forbiddenInputHigh());
         band(g, in, geo.forbiddenInputLow());
         band(g, out, geo.forbiddenOutputHigh());
         band(g, out, geo.forbiddenOutputLow());
-        g.setStroke(FAINT);
+        g.setStroke(pal().faint());
         g.setLineWidth(0.8);
         g.strokeRect(in.left(), geo.y(l.supplyVolts()), in.width(), geo.y(0) - geo.y(l.supplyVolts()));
         g.strokeRect(out.left(), geo.y(l.supplyVolts()), out.width(), geo.y(0) - geo.y(l.supplyVolts()));
@@ -185,12 +179,12 @@ public final class LadderCanvas extends Region {
         LadderLevel lit = spotlight.get();
         if (lit != null) {
             geo.mark(lit).ifPresent(m -> {
-                g.setFill(SPOTLIGHT);
+                g.setFill(pal().spotlight());
                 g.fillRect(in.left() - 6, m.y() - 6, w - in.left(), 12);
             });
             if (lit == LadderLevel.SIGNAL_ENVELOPE) {
                 LadderGeometry.Span e = geo.envelope();
-                g.setFill(SPOTLIGHT);
+                g.setFill(pal().spotlight());
                 g.fillRect(out.left() - 4, e.top() - 4, out.width() + 8, e.height() + 8);
             }
         }
@@ -199,20 +193,20 @@ public final class LadderCanvas extends Region {
         g.setFont(Font.font("System", 10));
         g.setTextAlign(TextAlignment.RIGHT);
         for (LadderGeometry.Tick t : geo.ticks()) {
-            g.setStroke(FAINT);
+            g.setStroke(pal().faint());
             g.setLineWidth(0.6);
             g.strokeLine(in.left() - 5, t.y(), in.left() - 1, t.y());
-            g.setFill(FAINT);
+            g.setFill(pal().faint());
             g.fillText(t.label(), in.left() - 7, t.y());
         }
 
         // rails, end-point rail, mid-rail
         g.setLineCap(StrokeLineCap.BUTT);
-        g.setStroke(INK);
+        g.setStroke(pal().ink());
         g.setLineWidth(3);
         g.strokeLine(in.left() - 4, geo.y(l.supplyVolts()), out.right() + 4, geo.y(l.supplyVolts()));
         g.strokeLine(in.left() - 4, geo.y(0), out.right() + 4, geo.y(0));
-        g.setStroke(END_POINT);
+        g.setStroke(pal().endPoint());
         g.setLineWidth(1.4);
         g.setLineDashes(6, 4);
         double ep = geo.clampedY(geo.endPointSupplyVolts());
@@ -220,7 +214,7 @@ public final class LadderCanvas extends Region {
         g.setLineDashes(2, 3);
         double epTop = geo.clampedY(l.endPointSwingHighVolts());
         g.strokeLine(out.left(), epTop, out.right(), epTop);
-        g.setStroke(MID);
+        g.setStroke(pal().mid());
         g.setLineWidth(1.2);
         g.setLineDashes(10, 3, 2, 3);
         double mid = geo.clampedY(l.midRailVolts());
@@ -228,12 +222,12 @@ public final class LadderCanvas extends Region {
         g.setLineDashes();
 
         // common-mode limits: inward notches on the inputs shaft
-        g.setFill(COMMON_MODE);
+        g.setFill(pal().commonMode());
         notch(g, in, geo.mark(LadderLevel.COMMON_MODE_HIGH).map(LadderGeometry.Mark::y).orElse(0.0), true);
         notch(g, in, geo.mark(LadderLevel.COMMON_MODE_LOW).map(LadderGeometry.Mark::y).orElse(0.0), false);
 
         // swing limits: firm edges of the output window
-        g.setStroke(INK);
+        g.setStroke(pal().ink());
         g.setLineWidth(1.6);
         g.strokeLine(out.left(), geo.y(l.swingHighVolts()), out.right(), geo.y(l.swingHighVolts()));
         g.strokeLine(out.left(), geo.y(l.swingLowVolts()), out.right(), geo.y(l.swingLowVolts()));
@@ -242,17 +236,17 @@ public final class LadderCanvas extends Region {
         LadderGeometry.Span env = geo.envelope();
         double ew = 12;
         double ex = out.centre() - ew / 2;
-        g.setFill(Color.color(SIGNAL.getRed(), SIGNAL.getGreen(), SIGNAL.getBlue(), 0.28));
+        g.setFill(Color.color(pal().signal().getRed(), pal().signal().getGreen(), pal().signal().getBlue(), 0.28));
         g.fillRoundRect(ex, env.top(), ew, Math.max(2, env.height()), ew, ew);
-        g.setStroke(SIGNAL);
+        g.setStroke(pal().signal());
         g.setLineWidth(1.2);
         g.strokeRoundRect(ex, env.top(), ew, Math.max(2, env.height()), ew, ew);
         geo.clippedHigh().ifPresent(s -> {
-            g.setFill(CLIP);
+            g.setFill(pal().clip());
             g.fillRect(ex - 3, s.top(), ew + 6, s.height());
         });
         geo.clippedLow().ifPresent(s -> {
-            g.setFill(CLIP);
+            g.setFill(pal().clip());
             g.fillRect(ex - 3, s.top(), ew + 6, s.height());
         });
 
@@ -261,8 +255,8 @@ public final class LadderCanvas extends Region {
         double sy = geo.shiftedQuiescentY();
         if (Math.abs(sy - qy) >= 1.5) {
             double ax = out.left() + 7;
-            g.setStroke(LEAK);
-            g.setFill(LEAK);
+            g.setStroke(pal().leak());
+            g.setFill(pal().leak());
             g.setLineWidth(1.6);
             g.strokeLine(ax, qy, ax, sy);
             double dir = Math.signum(sy - qy);
@@ -272,7 +266,7 @@ public final class LadderCanvas extends Region {
         // tolerance spread: a bracket beside the output shaft
         geo.spread().ifPresent(s -> {
             double x = geo.spreadX();
-            g.setStroke(SPREAD);
+            g.setStroke(pal().spread());
             g.setLineWidth(1.6);
             g.strokeLine(x, s.top(), x, s.bottom());
             g.strokeLine(x - 3, s.top(), x + 3, s.top());
@@ -282,9 +276,9 @@ public final class LadderCanvas extends Region {
         // rest point: a diamond
         double qx = out.centre();
         boolean stuck = r.stage().map(sr -> sr.nominal().saturated()).orElse(false);
-        g.setFill(stuck ? CLIP : SIGNAL);
+        g.setFill(stuck ? pal().clip() : pal().signal());
         g.fillPolygon(new double[] {qx - 7, qx, qx + 7, qx}, new double[] {qy, qy - 7, qy, qy + 7}, 4);
-        g.setStroke(Color.WHITE);
+        g.setStroke(pal().paper());
         g.setLineWidth(1.2);
         g.strokePolygon(new double[] {qx - 7, qx, qx + 7, qx}, new double[] {qy, qy - 7, qy, qy + 7}, 4);
 
@@ -294,14 +288,14 @@ public final class LadderCanvas extends Region {
         double bannerFloor = geo.plotBottom() + 27;
         if (stuck) {
             boolean top = geo.restSide() == Side.HIGH;
-            banner(g, top ? "● STUCK AT THE TOP AT REST" : "● STUCK AT THE FLOOR AT REST", CLIP,
+            banner(g, top ? "● STUCK AT THE TOP AT REST" : "● STUCK AT THE FLOOR AT REST", pal().clip(),
                     top ? bannerTop : bannerFloor, 8, w - 16);
         } else if (clip.isPresent()) {
             Side side = clip.get();
-            banner(g, side == Side.HIGH ? "▲ CLIPS AT THE TOP" : "▼ CLIPS AT THE FLOOR", CLIP,
+            banner(g, side == Side.HIGH ? "▲ CLIPS AT THE TOP" : "▼ CLIPS AT THE FLOOR", pal().clip(),
                     side == Side.HIGH ? bannerTop : bannerFloor, 8, w - 16);
         } else if (flaggedSeriously(r, LadderLevel.END_POINT_SUPPLY)) {
-            banner(g, "▼ CLIPS WHEN THE BATTERY IS LOW", END_POINT, bannerTop, 8, w - 16);
+            banner(g, "▼ CLIPS WHEN THE BATTERY IS LOW", pal().endPoint(), bannerTop, 8, w - 16);
         }
 
         // labels with leaders
@@ -321,7 +315,7 @@ public final class LadderCanvas extends Region {
             g.fillText(m.label(), geo.labelX(), m.labelY());
             Severity flag = r.flagged().get(m.level());
             if (flag != null && flag != Severity.NOTE && geo.mark(m.level()).filter(m::equals).isPresent()) {
-                g.setFill(flag == Severity.FAIL ? FAIL : WARN);
+                g.setFill(flag == Severity.FAIL ? pal().fail() : pal().warn());
                 g.fillOval(geo.labelX() - 9, m.labelY() - 3.5, 7, 7);
             }
         }
@@ -329,11 +323,11 @@ public final class LadderCanvas extends Region {
         // caption: the swing verdict in words
         g.setTextAlign(TextAlignment.LEFT);
         g.setFont(Font.font("System", 11));
-        g.setFill(INK);
+        g.setFill(pal().ink());
         double cy = h - 9;
         g.fillText(caption(r.stage(), l), 8, cy);
         g.setFont(Font.font("System", 10));
-        g.setFill(FAINT);
+        g.setFill(pal().faint());
         g.setTextAlign(TextAlignment.CENTER);
         g.fillText("in", in.centre(), geo.plotBottom() + 12);
         g.fillText("out", out.centre(), geo.plotBottom() + 12);
@@ -372,29 +366,29 @@ public final class LadderCanvas extends Region {
         return String.format(Locale.ROOT, "headroom %.1f dB, nearer the %s", db, side);
     }
 
-    private static Color colour(LadderLevel level) {
+    private Color colour(LadderLevel level) {
         return switch (level) {
-            case COMMON_MODE_HIGH, COMMON_MODE_LOW -> COMMON_MODE;
-            case END_POINT_SUPPLY -> END_POINT;
-            case MID_RAIL -> MID;
-            case QUIESCENT, SIGNAL_ENVELOPE -> SIGNAL;
-            case LEAKAGE_SHIFT -> LEAK;
-            case TOLERANCE_SPREAD -> SPREAD;
-            default -> INK;
+            case COMMON_MODE_HIGH, COMMON_MODE_LOW -> pal().commonMode();
+            case END_POINT_SUPPLY -> pal().endPoint();
+            case MID_RAIL -> pal().mid();
+            case QUIESCENT, SIGNAL_ENVELOPE -> pal().signal();
+            case LEAKAGE_SHIFT -> pal().leak();
+            case TOLERANCE_SPREAD -> pal().spread();
+            default -> pal().ink();
         };
     }
 
-    private static void band(GraphicsContext g, LadderGeometry.Column c, LadderGeometry.Span s) {
+    private void band(GraphicsContext g, LadderGeometry.Column c, LadderGeometry.Span s) {
         if (s.height() <= 0.5) {
             return;
         }
-        g.setFill(FORBIDDEN);
+        g.setFill(pal().forbidden());
         g.fillRect(c.left(), s.top(), c.width(), s.height());
         g.save();
         g.beginPath();
         g.rect(c.left(), s.top(), c.width(), s.height());
         g.clip();
-        g.setStroke(HATCH);
+        g.setStroke(pal().hatch());
         g.setLineWidth(1);
         for (double x = c.left() - s.height(); x < c.right(); x += 6) {
             g.strokeLine(x, s.bottom(), x + s.height(), s.top());
@@ -402,7 +396,7 @@ public final class LadderCanvas extends Region {
         g.restore();
     }
 
-    private static void notch(GraphicsContext g, LadderGeometry.Column c, double y, boolean pointsDown) {
+    private void notch(GraphicsContext g, LadderGeometry.Column c, double y, boolean pointsDown) {
         double d = pointsDown ? 5 : -5;
         g.fillPolygon(new double[] {c.left(), c.left() + 6, c.left()}, new double[] {y - d, y, y + d}, 3);
         g.fillPolygon(new double[] {c.right(), c.right() - 6, c.right()}, new double[] {y - d, y, y + d}, 3);

@@ -13,26 +13,26 @@ import javafx.scene.shape.Rectangle;
 final class LadderKey {
     private LadderKey() {}
 
-    static FlowPane create() {
+    static FlowPane create(Palette p) {
         FlowPane key = new FlowPane(14, 4);
         key.setPadding(new Insets(4, 6, 2, 6));
         key.getStyleClass().add("ladder-key");
-        Rectangle window = new Rectangle(14, 10, LadderCanvas.WINDOW);
-        window.setStroke(LadderCanvas.FAINT);
-        Rectangle forbidden = new Rectangle(14, 10, LadderCanvas.HATCH);
+        Rectangle window = new Rectangle(14, 10, p.window());
+        window.setStroke(p.faint());
+        Rectangle forbidden = new Rectangle(14, 10, p.hatch());
         Polygon rest = new Polygon(0, 5, 5, 0, 10, 5, 5, 10);
-        rest.setFill(LadderCanvas.SIGNAL);
-        Rectangle envelope = new Rectangle(8, 14, Color.color(0.23, 0.25, 0.62, 0.3));
+        rest.setFill(p.signal());
+        Rectangle envelope = new Rectangle(8, 14, p.signal().deriveColor(0, 1, 1, 0.3));
         envelope.setArcWidth(8);
         envelope.setArcHeight(8);
-        envelope.setStroke(LadderCanvas.SIGNAL);
-        Rectangle clip = new Rectangle(10, 10, LadderCanvas.CLIP);
+        envelope.setStroke(p.signal());
+        Rectangle clip = new Rectangle(10, 10, p.clip());
         Polygon notch = new Polygon(0, 0, 8, 5, 0, 10);
-        notch.setFill(LadderCanvas.COMMON_MODE);
-        Line endPoint = dashed(LadderCanvas.END_POINT, 6, 4);
-        Line mid = dashed(LadderCanvas.MID, 10, 3, 2, 3);
+        notch.setFill(p.commonMode());
+        Line endPoint = dashed(p.endPoint(), 6, 4);
+        Line mid = dashed(p.mid(), 10, 3, 2, 3);
         Line leak = new Line(0, 0, 0, 12);
-        leak.setStroke(LadderCanvas.LEAK);
+        leak.setStroke(p.leak());
         leak.setStrokeWidth(2);
         key.getChildren().addAll(
                 item(window, "usable"), item(forbidden, "out of reach"), item(rest, "rest point"),

@@ -17,8 +17,11 @@ public final class LadderPanel extends VBox {
     private final HBox row = new HBox(10);
     private final List<LadderCanvas> canvases = new ArrayList<>();
 
-    public LadderPanel(LadderPanelModel model) {
+    private final javafx.beans.value.ObservableValue<Palette> palette;
+
+    public LadderPanel(LadderPanelModel model, javafx.beans.value.ObservableValue<Palette> palette) {
         this.model = model;
+        this.palette = palette;
         getStyleClass().add("ladder-panel");
         setId("ladders");
         Label title = new Label("Voltage ladders, one per op-amp (0 V at the bottom, the rail at the top)");
@@ -28,7 +31,11 @@ public final class LadderPanel extends VBox {
         scroll.setFitToHeight(true);
         scroll.getStyleClass().add("ladder-scroll");
         VBox.setVgrow(scroll, Priority.ALWAYS);
-        getChildren().addAll(title, scroll, LadderKey.create());
+        getChildren().addAll(title, scroll, LadderKey.create(palette.getValue()));
+        palette.addListener((o, was, now) -> {
+            getChildren().set(2, LadderKey.create(now));
+            canvases.forEach(c -> c.paletteProperty().set(now));
+        });
         model.rungs().addListener((ListChangeListener<LadderPanelModel.Rung>) c -> rebuild());
         model.focusProperty().addListener((o, was, now) -> spotlight());
         rebuild();
@@ -39,6 +46,7 @@ public final class LadderPanel extends VBox {
         while (canvases.size() < rungs.size()) {
             LadderCanvas c = new LadderCanvas();
             c.setOnPick(model::pick);
+            c.paletteProperty().set(palette.getValue());
             HBox.setHgrow(c, Priority.SOMETIMES);
             c.setMaxWidth(LadderGeometry.preferredWidth() * 1.4);
             canvases.add(c);

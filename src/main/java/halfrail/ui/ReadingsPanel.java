@@ -18,13 +18,13 @@ public final class ReadingsPanel {
     public ReadingsPanel(ReadingsPanelModel model) {
         stages.setId("readings");
         stages.setItems(model.readings());
-        stages.getColumns().add(column("op-amp", ReadingsPanelModel.Reading::opAmp, 120));
-        stages.getColumns().add(column("rest", ReadingsPanelModel.Reading::rest, 80));
-        stages.getColumns().add(column("window", ReadingsPanelModel.Reading::window, 130));
-        stages.getColumns().add(column("headroom", ReadingsPanelModel.Reading::headroom, 80));
-        stages.getColumns().add(column("nearer", ReadingsPanelModel.Reading::nearer, 90));
-        stages.getColumns().add(column("bias ×", ReadingsPanelModel.Reading::biasGain, 80));
-        stages.getColumns().add(column("leakage", ReadingsPanelModel.Reading::leakageShift, 100));
+        stages.getColumns().add(column("op-amp", ReadingsPanelModel.Reading::opAmp, 90));
+        stages.getColumns().add(column("rest", ReadingsPanelModel.Reading::rest, 62));
+        stages.getColumns().add(column("window", ReadingsPanelModel.Reading::window, 118));
+        stages.getColumns().add(column("headroom", ReadingsPanelModel.Reading::headroom, 74));
+        stages.getColumns().add(column("nearer", ReadingsPanelModel.Reading::nearer, 58));
+        stages.getColumns().add(column("bias ×", ReadingsPanelModel.Reading::biasGain, 54));
+        stages.getColumns().add(column("leakage", ReadingsPanelModel.Reading::leakageShift, 80));
         stages.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
         stages.setPlaceholder(new Label("no numbers: the circuit could not be solved"));
         TableView<ReadingsPanelModel.Figure> figures = new TableView<>();

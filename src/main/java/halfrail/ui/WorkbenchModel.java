@@ -58,6 +58,7 @@ public final class WorkbenchModel {
     private final ReadOnlyBooleanWrapper dirty = new ReadOnlyBooleanWrapper(this, "dirty");
     private final ObjectProperty<Path> file = new SimpleObjectProperty<>(this, "file");
 
+    private final BooleanProperty dark = new SimpleBooleanProperty(this, "dark");
     private final BooleanProperty trialActive = new SimpleBooleanProperty(this, "trialActive");
     private final DoubleProperty trialVolts = new SimpleDoubleProperty(this, "trialVolts");
     private final ReadOnlyDoubleWrapper trialLowVolts = new ReadOnlyDoubleWrapper(this, "trialLowVolts");
@@ -350,6 +351,11 @@ public final class WorkbenchModel {
 
     public ObjectProperty<Path> fileProperty() {
         return file;
+    }
+
+    /** Whether the window uses the dark appearance. */
+    public BooleanProperty darkProperty() {
+        return dark;
     }
 
     /** Whether the analysis runs at the trial supply instead of the design's own. */

@@ -42,12 +42,18 @@ public final class WorkbenchView extends BorderPane {
         this.model = model;
         getStyleClass().add("workbench");
         editor = new EditorPanel(model.editor());
-        ladders = new LadderPanel(model.ladders());
+        javafx.beans.binding.ObjectBinding<Palette> palette = javafx.beans.binding.Bindings.createObjectBinding(
+                () -> Palette.of(model.darkProperty().get()), model.darkProperty());
+        ladders = new LadderPanel(model.ladders(), palette);
         findings = new FindingsPanel(model.findings());
         readings = new ReadingsPanel(model.readings());
         trial = new SupplyTrialBar(model);
 
         chain = new ChainCanvas(model.chain());
+        chain.paletteProperty().bind(palette);
+        String darkSheet = java.util.Objects.requireNonNull(getClass().getResource("halfrail-dark.css")).toExternalForm();
+        model.darkProperty().addListener((o, was, now) -> appearance(darkSheet, now));
+        appearance(darkSheet, model.darkProperty().get());
         VBox centre = new VBox(4, chain, ladders, trial);
         VBox.setVgrow(ladders, Priority.ALWAYS);
         centre.setPadding(new Insets(4));
@@ -65,6 +71,13 @@ public final class WorkbenchView extends BorderPane {
         setTop(menus());
         setCenter(main);
         setBottom(statusLine());
+    }
+
+    private void appearance(String darkSheet, boolean dark) {
+        getStylesheets().remove(darkSheet);
+        if (dark) {
+            getStylesheets().add(darkSheet);
+        }
     }
 
     private HBox statusLine() {
@@ -148,7 +161,13 @@ public final class WorkbenchView extends BorderPane {
         add.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+N"));
         add.setOnAction(e -> model.editor().addStage());
         edit.getItems().addAll(undo, redo, new SeparatorMenuItem(), add);
-        return new MenuBar(design, edit);
+        Menu look = new Menu("View");
+        javafx.scene.control.CheckMenuItem darkItem = new javafx.scene.control.CheckMenuItem("Dark appearance");
+        darkItem.setId("dark");
+        darkItem.selectedProperty().bindBidirectional(model.darkProperty());
+        darkItem.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+D"));
+        look.getItems().add(darkItem);
+        return new MenuBar(design, edit, look);
     }
 
     private MenuItem sample(String name, Supplier<Design> make) {

@@ -47,6 +47,12 @@ class RenderScreens {
     }
 
     @Test
+    void rendersTheMainWindowInTheDarkAppearance() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> v.model().darkProperty().set(true), "main-window-dark.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
     void rendersATwoStageDesignOnTheSupplyTrialAtTheEndPoint() throws Exception {
         Path file = render(SampleDesigns.instrumentBoost(), v -> {
             v.model().editor().addStage();

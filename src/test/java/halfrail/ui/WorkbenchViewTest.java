@@ -141,4 +141,24 @@ class WorkbenchViewTest {
         assertEquals(2, view.ladders().canvases().size());
         assertTrue(robot.lookup("#" + EditorPanel.idFor("stages[1].feedbackOhms")).tryQuery().isPresent());
     }
+
+    @Test
+    void theDarkAppearanceRepaintsTheLaddersAndRestylesTheWindow(FxRobot robot) {
+        robot.interact(() -> view.model().darkProperty().set(true));
+        WaitForAsyncUtils.waitForFxEvents();
+        assertSame(Palette.DARK, view.ladders().canvases().get(0).paletteProperty().get());
+        assertSame(Palette.DARK, view.chain().paletteProperty().get());
+        assertTrue(view.getStylesheets().stream().anyMatch(u -> u.endsWith("halfrail-dark.css")));
+        robot.interact(() -> view.model().darkProperty().set(false));
+        assertSame(Palette.LIGHT, view.ladders().canvases().get(0).paletteProperty().get());
+        assertTrue(view.getStylesheets().isEmpty());
+    }
+
+    @Test
+    void theSystemsDarkThemeIsReadFromTheGtkThemeVariable() {
+        // GTK 3 reads GTK_THEME as "name" or "name:variant", the dark variant being ":dark"
+        assertTrue(HalfrailApp.systemPrefersDark("Adwaita:dark"));
+        assertFalse(HalfrailApp.systemPrefersDark("Adwaita"));
+        assertFalse(HalfrailApp.systemPrefersDark(null));
+    }
 }
