@@ -18,13 +18,13 @@ public final class ReadingsPanel {
     public ReadingsPanel(ReadingsPanelModel model) {
         stages.setId("readings");
         stages.setItems(model.readings());
-        stages.getColumns().add(column("op-amp", ReadingsPanelModel.Reading::opAmp, 90));
-        stages.getColumns().add(column("rest", ReadingsPanelModel.Reading::rest, 62));
-        stages.getColumns().add(column("window", ReadingsPanelModel.Reading::window, 118));
-        stages.getColumns().add(column("headroom", ReadingsPanelModel.Reading::headroom, 74));
-        stages.getColumns().add(column("nearer", ReadingsPanelModel.Reading::nearer, 58));
-        stages.getColumns().add(column("bias ×", ReadingsPanelModel.Reading::biasGain, 54));
-        stages.getColumns().add(column("leakage", ReadingsPanelModel.Reading::leakageShift, 80));
+        stages.getColumns().add(tip(column("op-amp", ReadingsPanelModel.Reading::opAmp, 90), "The stage's name, or the reference buffer."));
+        stages.getColumns().add(tip(column("rest", ReadingsPanelModel.Reading::rest, 62), "Quiescent point: the output voltage with no signal, at the analysed supply."));
+        stages.getColumns().add(tip(column("window", ReadingsPanelModel.Reading::window, 118), "Swing window: the lowest and highest voltage the output can reach at this supply."));
+        stages.getColumns().add(tip(column("headroom", ReadingsPanelModel.Reading::headroom, 74), "Room between the signal's peaks at the nominal level and the nearer swing limit, in dB (negative: it clips)."));
+        stages.getColumns().add(tip(column("nearer", ReadingsPanelModel.Reading::nearer, 58), "Which limit the signal meets first: the top (towards the supply) or the floor (towards ground)."));
+        stages.getColumns().add(tip(column("bias ×", ReadingsPanelModel.Reading::biasGain, 54), "DC gain from the mid-rail reference to the output; 1 for a correctly built stage."));
+        stages.getColumns().add(tip(column("leakage", ReadingsPanelModel.Reading::leakageShift, 80), "How far the rest point moves when every capacitor leaks at its limit value."));
         stages.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
         stages.setPlaceholder(new Label("no numbers: the circuit could not be solved"));
         TableView<ReadingsPanelModel.Figure> figures = new TableView<>();
@@ -59,6 +59,15 @@ public final class ReadingsPanel {
 
     public TableView<ReadingsPanelModel.Reading> stagesTable() {
         return stages;
+    }
+
+    /** Give {@code c} a header that explains the quantity when pointed at. */
+    private static <R> TableColumn<R, String> tip(TableColumn<R, String> c, String text) {
+        Label header = new Label(c.getText());
+        header.setTooltip(new javafx.scene.control.Tooltip(text));
+        c.setText(null);
+        c.setGraphic(header);
+        return c;
     }
 
     private static <R> TableColumn<R, String> column(String name, Function<R, String> value, double width) {
