@@ -70,9 +70,12 @@ public final class WorkbenchModel {
     private final FindingsPanelModel findings = new FindingsPanelModel();
     private final ReadingsPanelModel readings = new ReadingsPanelModel();
     private final ChainPanelModel chain = new ChainPanelModel();
+    private final HeadroomSweepModel headroom;
     private final EditorPanelModel editor;
 
     private long generation;
+    /** The user's latest action, in words, put before the analysis summary in the status line. */
+    private String lastAction = "";
     private AnalysisExecutor.Job running;
     private Design saved;
 
@@ -80,6 +83,7 @@ public final class WorkbenchModel {
         this.executor = Objects.requireNonNull(executor, "executor");
         this.files = Objects.requireNonNull(files, "files");
         this.editor = new EditorPanelModel(this);
+        this.headroom = new HeadroomSweepModel(executor);
         findings.selectedProperty().addListener((o, was, now) -> focusOn(now));
         ladders.setLevelPicker((opAmp, level) -> findings.selectFirst(opAmp, level));
         chain.setPicker(findings::selectFirstAbout);
@@ -111,30 +115,31 @@ public final class WorkbenchModel {
             return Optional.empty();
         }
         history.record(new EditHistory.DesignEdit(description, before, after));
+        lastAction = "Edited " + description;
         show(after);
-        status.set("Edited: " + description);
         return Optional.empty();
     }
 
     /** Take back the latest edit. */
     public void undo() {
         history.undo().ifPresent(e -> {
+            lastAction = "Undone " + e.description();
             show(e.before());
-            status.set("Undone: " + e.description());
         });
     }
 
     /** Apply again the latest undone edit. */
     public void redo() {
         history.redo().ifPresent(e -> {
+            lastAction = "Redone " + e.description();
             show(e.after());
-            status.set("Redone: " + e.description());
         });
     }
 
     /** Start over on another design (a sample, or a file just read), forgetting the edit history. */
     public void replace(Design d, Path from) {
         history.clear();
+        lastAction = "";
         saved = d;
         file.set(from);
         trialActive.set(false);
@@ -157,6 +162,7 @@ public final class WorkbenchModel {
         dirty.set(d != saved);
         editor.designChanged(d);
         analyse();
+        headroom.request(d);
     }
 
     // ---- analysis --------------------------------------------------------------------------
@@ -210,7 +216,7 @@ public final class WorkbenchModel {
         long fails = r.findings().stream().filter(f -> f.severity() == Severity.FAIL).count();
         long warns = r.findings().stream().filter(f -> f.severity() == Severity.WARN).count();
         String where = trialActive.get() ? String.format(" at a trial supply of %.2f V", trialVolts.get()) : "";
-        status.set(String.format("Analysed%s: %d op-amp%s, %d failing, %d warning%s, %d finding%s in all",
+        status.set((lastAction.isEmpty() ? "" : lastAction + " · ") + String.format("Analysed%s: %d op-amp%s, %d failing, %d warning%s, %d finding%s in all",
                 where, r.ladders().size(), r.ladders().size() == 1 ? "" : "s", fails, warns,
                 warns == 1 ? "" : "s", r.findings().size(), r.findings().size() == 1 ? "" : "s"));
     }
@@ -392,6 +398,10 @@ public final class WorkbenchModel {
 
     public ReadingsPanelModel readings() {
         return readings;
+    }
+
+    public HeadroomSweepModel headroom() {
+        return headroom;
     }
 
     public ChainPanelModel chain() {

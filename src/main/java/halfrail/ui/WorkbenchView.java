@@ -36,6 +36,8 @@ public final class WorkbenchView extends BorderPane {
     private final ReadingsPanel readings;
     private final SupplyTrialBar trial;
     private final ChainCanvas chain;
+    private final HeadroomChart headroomChart;
+    private final javafx.scene.control.TabPane bottomTabs;
     private final Label status = new Label();
 
     public WorkbenchView(WorkbenchModel model) {
@@ -60,7 +62,13 @@ public final class WorkbenchView extends BorderPane {
         HBox numbers = new HBox(8, readings.stagesBox(), readings.figuresBox());
         HBox.setHgrow(readings.stagesBox(), Priority.ALWAYS);
         numbers.setPadding(new Insets(4));
-        SplitPane middle = new SplitPane(centre, numbers);
+        headroomChart = new HeadroomChart(model.headroom());
+        javafx.scene.control.Tab readingsTab = new javafx.scene.control.Tab("Readings", numbers);
+        javafx.scene.control.Tab plotTab = new javafx.scene.control.Tab("Headroom against supply", headroomChart);
+        plotTab.setId("headroom-tab");
+        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab);
+        bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
+        SplitPane middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
         middle.setDividerPositions(0.68);
         SplitPane main = new SplitPane(editor, middle, findings);
@@ -139,10 +147,12 @@ public final class WorkbenchView extends BorderPane {
         csv.setOnAction(e -> exportReadings());
         MenuItem picture = new MenuItem("Save a picture of the ladders…");
         picture.setOnAction(e -> savePicture(ladders, "ladders.png"));
+        MenuItem plot = new MenuItem("Save a picture of the headroom plot…");
+        plot.setOnAction(e -> savePicture(headroomChart, "headroom.png"));
         MenuItem window = new MenuItem("Save a picture of the window…");
         window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
         design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, save, saveAs, new SeparatorMenuItem(), csv,
-                picture, window, new SeparatorMenuItem(), quit);
+                picture, plot, window, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");
         MenuItem undo = new MenuItem();
@@ -266,6 +276,15 @@ public final class WorkbenchView extends BorderPane {
 
     public ReadingsPanel readings() {
         return readings;
+    }
+
+    public HeadroomChart headroomChart() {
+        return headroomChart;
+    }
+
+    /** The tabs under the ladders: the readings and the plots. */
+    public javafx.scene.control.TabPane bottomTabs() {
+        return bottomTabs;
     }
 
     public ChainCanvas chain() {

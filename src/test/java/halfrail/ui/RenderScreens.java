@@ -47,6 +47,15 @@ class RenderScreens {
     }
 
     @Test
+    void rendersTheHeadroomPlotOfTheTwoStageDesign() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.model().editor().addStage();
+            v.bottomTabs().getSelectionModel().select(1);
+        }, "headroom-plot.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
     void rendersTheMainWindowInTheDarkAppearance() throws Exception {
         Path file = render(SampleDesigns.instrumentBoost(), v -> v.model().darkProperty().set(true), "main-window-dark.png");
         assertTrue(Files.size(file) > 10_000);

@@ -106,6 +106,7 @@ class WorkbenchModelTest {
         assertTrue(model.canUndoProperty().get());
         model.undo();
         assertSame(original, model.design());
+        assertTrue(model.statusProperty().get().startsWith("Undone R1 leg = 2k2 · Analysed"), model.statusProperty().get());
         assertEquals(rest, ladder().envelopeHighVolts(), 1e-12);
         assertEquals("3.9 kΩ", r1.textProperty().get());
         assertTrue(model.canRedoProperty().get());
@@ -123,16 +124,18 @@ class WorkbenchModelTest {
         r2.commit();
         r2.textProperty().set("56k");
         r2.commit();
-        assertEquals(3, held.jobs.size());
+        // each design change starts an analysis and a headroom sweep: jobs 0, 2, 4 are the analyses
+        assertEquals(6, held.jobs.size());
         assertTrue(held.jobs.get(0).cancelled());
-        assertTrue(held.jobs.get(1).cancelled());
-        assertFalse(held.jobs.get(2).cancelled());
-        held.jobs.get(2).finish();
+        assertTrue(held.jobs.get(2).cancelled());
+        assertTrue(held.jobs.get(3).cancelled(), "the older sweep too");
+        assertFalse(held.jobs.get(4).cancelled());
+        held.jobs.get(4).finish();
         DesignReport latest = m.reportProperty().get();
         assertEquals(56e3, latest.design().stages().get(0).feedbackOhms(), 1e-9);
         // even if an older job's work had finished, the generation check would drop it
-        held.jobs.get(1).cancel();
-        held.jobs.get(1).finish();
+        held.jobs.get(2).cancel();
+        held.jobs.get(2).finish();
         assertSame(latest, m.reportProperty().get());
         assertFalse(m.analysingProperty().get());
     }
@@ -250,7 +253,7 @@ class WorkbenchModelTest {
         EditorPanelModel.TextEntry r1 = (EditorPanelModel.TextEntry) m.editor().field("stages[0].legOhms").orElseThrow();
         r1.textProperty().set("4k7");
         r1.commit();
-        held.fail(1, new halfrail.design.DesignException("stages[0].legOhms", "refused for the test"));
+        held.fail(2, new halfrail.design.DesignException("stages[0].legOhms", "refused for the test"));
         assertTrue(m.ladders().rungs().isEmpty());
         Finding f = m.findings().items().get(0);
         assertEquals(WorkbenchModel.NOT_ANALYSED, f.code());
@@ -273,5 +276,20 @@ class WorkbenchModelTest {
         Finding picked = model.findings().selectedProperty().get();
         assertEquals(Severity.FAIL, picked.severity());
         assertTrue(model.chain().isSpotlit("stages[0]"));
+    }
+
+    @Test
+    void headroomShrinksAsTheBatteryRunsDown() {
+        HeadroomSweepModel.Curve c = model.headroom().curves().get(0);
+        assertEquals("boost", c.opAmp());
+        assertEquals(HeadroomSweepModel.SWEEP_POINTS, c.points().size());
+        assertEquals(model.design().supply().lowVolts(), c.points().get(0).volts(), 1e-9);
+        assertEquals(model.design().supply().highVolts(), c.points().get(c.points().size() - 1).volts(), 1e-9);
+        // with the rest point at mid-rail, a lower rail narrows the swing window around the same signal
+        // (common practice), so headroom grows with the supply
+        for (int i = 1; i < c.points().size(); i++) {
+            assertTrue(c.points().get(i).headroomDb() > c.points().get(i - 1).headroomDb(), c.points().toString());
+        }
+        assertEquals(3.0, model.headroom().limitDbProperty().get(), 1e-12);
     }
 }
