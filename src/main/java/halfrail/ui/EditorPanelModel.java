@@ -218,6 +218,7 @@ public final class EditorPanelModel {
                     d -> apply.apply(d, option.key()));
             if (refused.isPresent()) {
                 refresh(owner.current());
+                owner.workbench.tell("Not changed: " + label + " — " + refused.get());
             }
             return refused;
         }
@@ -327,7 +328,7 @@ public final class EditorPanelModel {
         Design d = current();
         Stage last = d.stages().get(d.stages().size() - 1);
         String name = freeName(d, "stage ");
-        workbench.edit("add stage " + name, x -> {
+        workbench.edit("add a stage named " + name, x -> {
             List<Stage> list = new ArrayList<>(x.stages());
             list.add(renamed(last, name));
             return x.withStages(list);

@@ -120,6 +120,11 @@ public final class WorkbenchModel {
         return Optional.empty();
     }
 
+    /** Put a message of the editor's in the status line (a refused choice, for example). */
+    void tell(String message) {
+        status.set(message);
+    }
+
     /** Take back the latest edit. */
     public void undo() {
         history.undo().ifPresent(e -> {

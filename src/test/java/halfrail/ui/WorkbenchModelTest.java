@@ -292,4 +292,15 @@ class WorkbenchModelTest {
         }
         assertEquals(3.0, model.headroom().limitDbProperty().get(), 1e-12);
     }
+
+    @Test
+    void aCustomOpAmpCannotBeChosenInTheEditorAndTheStatusLineSaysWhy() {
+        EditorPanelModel.Choice opAmp = (EditorPanelModel.Choice) model.editor().field("stages[0].opAmp").orElseThrow();
+        Design before = model.design();
+        EditorPanelModel.Option custom = opAmp.options().stream().filter(o -> o.key().isEmpty()).findFirst().orElseThrow();
+        assertTrue(opAmp.choose(custom).isPresent());
+        assertSame(before, model.design());
+        assertTrue(model.statusProperty().get().startsWith("Not changed: op-amp"), model.statusProperty().get());
+        assertEquals("single-supply-bipolar", opAmp.selectedProperty().get().key());
+    }
 }
