@@ -161,4 +161,19 @@ class WorkbenchViewTest {
         assertFalse(HalfrailApp.systemPrefersDark("Adwaita"));
         assertFalse(HalfrailApp.systemPrefersDark(null));
     }
+
+    @Test
+    void draggingTheSupplyTrialToTheEndPointLowersTheRailOnTheLadder(FxRobot robot) {
+        double endPoint = view.model().design().supply().lowVolts();
+        robot.interact(() -> {
+            view.trial().slider().setValue(endPoint);
+            robot.lookup("#trial-on").queryAs(javafx.scene.control.CheckBox.class).setSelected(true);
+        });
+        WaitForAsyncUtils.waitForFxEvents();
+        LadderCanvas ladder = view.ladders().canvases().get(0);
+        assertEquals(endPoint, ladder.geometry().ladder().supplyVolts(), 1e-9);
+        // the equal divider follows the rail: mid-rail at half the end-point voltage (voltage-divider rule)
+        assertEquals(endPoint / 2, ladder.geometry().ladder().midRailVolts(), 0.05);
+        assertTrue(robot.lookup("#status").queryLabeled().getText().contains("trial supply"));
+    }
 }
