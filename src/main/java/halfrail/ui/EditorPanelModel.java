@@ -115,7 +115,7 @@ public final class EditorPanelModel {
             try {
                 apply.apply(owner.current(), t);
                 reason = "";
-            } catch (IllegalArgumentException | DesignException e) {
+            } catch (IllegalArgumentException | DesignException | halfrail.circuit.CircuitException e) {
                 reason = e.getMessage();
             } catch (RuntimeException e) {
                 // the field's part of the design is gone (a stage removed while it had focus)
@@ -376,6 +376,9 @@ public final class EditorPanelModel {
     private static String shapeOf(Design d) {
         StringBuilder b = new StringBuilder();
         b.append(d.supply().getClass().getSimpleName()).append('|').append(d.reference().kind());
+        if (d.reference().buffer() != null) {
+            b.append(d.reference().buffer().archetypeId().isPresent());
+        }
         for (Stage s : d.stages()) {
             b.append('|').append(s.kind()).append(s.legCapacitor() != null).append(s.inputCapacitor() != null)
                     .append(s.opAmp().archetypeId().isPresent());
@@ -554,6 +557,10 @@ public final class EditorPanelModel {
         if (r.kind() == ReferenceKind.DIVIDER_BUFFERED) {
             f.add(archetypeChoice("buffer op-amp", "reference.buffer", x -> x.reference().buffer(),
                     (x, o) -> x.withReference(ref(x.reference(), null, null, o, null, null))));
+            if (r.buffer().customParams().isPresent()) {
+                customOpAmpFields(f, "reference.buffer", x -> x.reference().buffer(),
+                        (x, o) -> x.withReference(ref(x.reference(), null, null, o, null, null)));
+            }
             f.add(value("isolation resistor", "reference.isolationOhms", Unit.OHM,
                     "Resistor between the buffer's output and its decoupling capacitor.",
                     x -> x.reference().isolationOhms(), (x, v) -> x.withReference(ref(x.reference(), null, null, null, v, null))));
@@ -607,6 +614,10 @@ public final class EditorPanelModel {
                         StageKind.valueOf(k)))));
         f.add(archetypeChoice("op-amp", p + ".opAmp", x -> x.stages().get(i).opAmp(),
                 (x, o) -> x.withStage(i, x.stages().get(i).withOpAmp(o))));
+        if (s.opAmp().customParams().isPresent()) {
+            customOpAmpFields(f, p + ".opAmp", x -> x.stages().get(i).opAmp(),
+                    (x, o) -> x.withStage(i, x.stages().get(i).withOpAmp(o)));
+        }
         if (s.kind() != StageKind.FOLLOWER) {
             f.add(value("R2 feedback", p + ".feedbackOhms", Unit.OHM, "From the output to the inverting input.",
                     x -> x.stages().get(i).feedbackOhms(), (x, v) -> x.withStage(i, x.stages().get(i).withFeedbackOhms(v))));
@@ -684,15 +695,67 @@ public final class EditorPanelModel {
         for (OpAmpArchetype a : parts.opAmpArchetypes()) {
             opts.add(new Option(a.id(), a.displayName()));
         }
-        opts.add(new Option("", "custom part (kept as entered)"));
-        return new Choice(this, label, path, "The op-amp, described by its kind rather than by a part number.", opts,
+        opts.add(new Option("", "custom part (own data-sheet figures)"));
+        return new Choice(this, label, path, "The op-amp, described by its kind rather than by a part number; "
+                + "a custom part starts from the chosen kind's typical figures.", opts,
                 x -> get.apply(x).archetypeId().orElse(""),
                 (x, k) -> {
-                    if (k.isEmpty()) {
-                        throw new IllegalArgumentException("a custom part's parameters are entered in a design file");
+                    OpAmpChoice now = get.apply(x);
+                    if (!k.isEmpty()) {
+                        return set.apply(x, OpAmpChoice.archetype(k));
                     }
-                    return set.apply(x, OpAmpChoice.archetype(k));
+                    if (now.customParams().isPresent()) {
+                        return x;
+                    }
+                    return set.apply(x, OpAmpChoice.custom(parts.requireOpAmpArchetype(now.archetype()).typical()));
                 });
+    }
+
+    /** The figures of a custom op-amp, in the order of {@link halfrail.circuit.OpAmpParams}'s components. */
+    private void customOpAmpFields(List<Field> f, String path, Function<Design, OpAmpChoice> get,
+                                   BiFunction<Design, OpAmpChoice, Design> set) {
+        String[] labels = {"open-loop gain", "gain-bandwidth", "slew rate, V/µs", "input offset", "input bias current",
+            "input offset current", "input floor above V−", "input top below V+", "output floor above V−",
+            "output top below V+", "output resistance", "quiescent current", "supply, lowest", "supply, highest"};
+        Unit[] units = {Unit.NONE, Unit.HERTZ, Unit.NONE, Unit.VOLT, Unit.AMPERE, Unit.AMPERE, Unit.VOLT, Unit.VOLT,
+            Unit.VOLT, Unit.VOLT, Unit.OHM, Unit.AMPERE, Unit.VOLT, Unit.VOLT};
+        String[] help = {"DC open-loop gain, V/V.", "Gain-bandwidth product.", "Output slew-rate limit in V/µs.",
+            "Input offset voltage.", "Input bias current into each input.", "Input offset current.",
+            "Lowest usable input, as headroom above the negative rail (negative: below it).",
+            "Highest usable input, as headroom below the positive rail (negative: above it).",
+            "Lowest output, as headroom above the negative rail.", "Highest output, as headroom below the positive rail.",
+            "Open-loop output resistance.", "Supply current with no load.", "Lowest total supply the part is specified for.",
+            "Highest total supply the part is specified for (\"no limit\" for none)."};
+        for (int i = 0; i < labels.length; i++) {
+            int index = i;
+            double scale = index == 2 ? 1e-6 : 1;
+            Unit unit = units[i];
+            f.add(new TextEntry(this, labels[i], path + ".custom." + i, unit.symbol(), help[i],
+                    x -> {
+                        double v = opAmpFigures(custom(get.apply(x)))[index] * scale;
+                        return Double.isInfinite(v) ? NO_LIMIT : EngineeringValue.format(v, unit);
+                    },
+                    (x, t) -> {
+                        double[] all = opAmpFigures(custom(get.apply(x)));
+                        all[index] = index == 13 && t.trim().equalsIgnoreCase(NO_LIMIT) ? Double.POSITIVE_INFINITY
+                                : EngineeringValue.parse(t, unit) / scale;
+                        return set.apply(x, OpAmpChoice.custom(new halfrail.circuit.OpAmpParams(all[0], all[1], all[2],
+                                all[3], all[4], all[5], all[6], all[7], all[8], all[9], all[10], all[11], all[12], all[13])));
+                    }));
+        }
+    }
+
+    /** Shown for a custom op-amp's unlimited supply range. */
+    static final String NO_LIMIT = "no limit";
+
+    private static halfrail.circuit.OpAmpParams custom(OpAmpChoice c) {
+        return c.customParams().orElseThrow(() -> new IllegalArgumentException("the op-amp is not a custom part"));
+    }
+
+    private static double[] opAmpFigures(halfrail.circuit.OpAmpParams p) {
+        return new double[] {p.openLoopGain(), p.gainBandwidthHz(), p.slewRateVoltsPerSecond(), p.offsetVolts(),
+            p.biasAmps(), p.offsetCurrentAmps(), p.commonModeLowVolts(), p.commonModeHighVolts(), p.swingLowVolts(),
+            p.swingHighVolts(), p.outputOhms(), p.quiescentAmps(), p.supplyMinVolts(), p.supplyMaxVolts()};
     }
 
     /** Technology, value and rating of one capacitor; an optional one can be left out through its technology. */

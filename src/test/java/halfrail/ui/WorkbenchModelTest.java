@@ -294,13 +294,24 @@ class WorkbenchModelTest {
     }
 
     @Test
-    void aCustomOpAmpCannotBeChosenInTheEditorAndTheStatusLineSaysWhy() {
+    void aCustomOpAmpStartsFromTheArchetypesFiguresAndItsSwingLimitMovesTheLadder() {
         EditorPanelModel.Choice opAmp = (EditorPanelModel.Choice) model.editor().field("stages[0].opAmp").orElseThrow();
-        Design before = model.design();
+        double top = ladder().swingHighVolts();
         EditorPanelModel.Option custom = opAmp.options().stream().filter(o -> o.key().isEmpty()).findFirst().orElseThrow();
-        assertTrue(opAmp.choose(custom).isPresent());
-        assertSame(before, model.design());
-        assertTrue(model.statusProperty().get().startsWith("Not changed: op-amp"), model.statusProperty().get());
-        assertEquals("single-supply-bipolar", opAmp.selectedProperty().get().key());
+        assertTrue(opAmp.choose(custom).isEmpty());
+        assertTrue(model.design().stages().get(0).opAmp().customParams().isPresent());
+        // same figures as the archetype: same output top
+        assertEquals(top, ladder().swingHighVolts(), 1e-9);
+        EditorPanelModel.TextEntry headroomTop = entry("stages[0].opAmp.custom.9");
+        double was = model.design().stages().get(0).opAmp().customParams().orElseThrow().swingHighVolts();
+        headroomTop.textProperty().set("0.5");
+        assertTrue(headroomTop.commit(), headroomTop.problemProperty().get());
+        // the output top is "headroom below V+": 0.5 V more room moves it up by (was − 0.5) V at the same rail
+        assertEquals(top + (was - 0.5), ladder().swingHighVolts(), 0.02);
+        headroomTop.textProperty().set("-1");
+        assertFalse(headroomTop.problemProperty().get().isEmpty(), "the op-amp model refuses a negative swing headroom");
+        model.undo();
+        model.undo();
+        assertEquals(SampleDesigns.instrumentBoost(), model.design());
     }
 }
