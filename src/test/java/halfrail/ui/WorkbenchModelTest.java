@@ -314,4 +314,63 @@ class WorkbenchModelTest {
         model.undo();
         assertEquals(SampleDesigns.instrumentBoost(), model.design());
     }
+
+    /** A design store for the test: keeps designs in memory by path, as the design-file layer will on disk. */
+    static final class MemoryFiles implements DesignFileActions {
+        final java.util.Map<java.nio.file.Path, Design> stored = new java.util.HashMap<>();
+
+        @Override
+        public Design read(java.nio.file.Path file) throws java.io.IOException {
+            Design d = stored.get(file);
+            if (d == null) {
+                throw new java.io.IOException("no such design: " + file);
+            }
+            return d;
+        }
+
+        @Override
+        public void write(Design design, java.nio.file.Path file) {
+            stored.put(file, design);
+        }
+
+        @Override
+        public String extension() {
+            return "json";
+        }
+    }
+
+    @Test
+    void anEditMarksTheDesignUnsavedAndUndoingItClearsTheMark() {
+        assertFalse(model.dirtyProperty().get());
+        EditorPanelModel.TextEntry r2 = entry("stages[0].feedbackOhms");
+        r2.textProperty().set("47k");
+        r2.commit();
+        assertTrue(model.dirtyProperty().get());
+        model.undo();
+        assertFalse(model.dirtyProperty().get(), "back at the design as opened");
+    }
+
+    @Test
+    void savingAndReopeningGivesTheSameDesignWithAFreshHistory() {
+        MemoryFiles files = new MemoryFiles();
+        WorkbenchModel m = new WorkbenchModel(sync, SampleDesigns.instrumentBoost(), Optional.of(files));
+        assertTrue(m.filesAvailable());
+        EditorPanelModel.TextEntry r2 = (EditorPanelModel.TextEntry) m.editor().field("stages[0].feedbackOhms").orElseThrow();
+        r2.textProperty().set("47k");
+        r2.commit();
+        java.nio.file.Path path = java.nio.file.Path.of("boost.json");
+        m.saveAs(path);
+        assertFalse(m.dirtyProperty().get());
+        assertEquals(path, m.fileProperty().get());
+        Design saved = m.design();
+        m.replace(SampleDesigns.missingLegCapacitor(), null);
+        m.open(path);
+        assertEquals(saved, m.design());
+        assertEquals(path, m.fileProperty().get());
+        assertFalse(m.canUndoProperty().get());
+        assertEquals(47e3, m.reportProperty().get().design().stages().get(0).feedbackOhms(), 1e-9);
+        m.open(java.nio.file.Path.of("missing.json"));
+        assertTrue(m.statusProperty().get().startsWith("Could not open missing.json"), m.statusProperty().get());
+        assertEquals(saved, m.design(), "a failed open keeps the design");
+    }
 }
