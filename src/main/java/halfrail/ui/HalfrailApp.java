@@ -5,6 +5,7 @@ import javafx.application.Application;
 import javafx.scene.Scene;
 import javafx.stage.Stage;
 
+import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 
@@ -34,6 +35,9 @@ public class HalfrailApp extends Application {
         executor = new BackgroundAnalysisExecutor();
         model = new WorkbenchModel(executor, SampleDesigns.instrumentBoost(), fileActions);
         model.darkProperty().set(systemPrefersDark(System.getenv("GTK_THEME")));
+        if (fileActions.isPresent()) {
+            model.useRecentFiles(storedRecentFiles());
+        }
         WorkbenchView view = new WorkbenchView(model);
         stage.setTitle("Halfrail — single-supply stage checker");
         stage.setScene(scene(view));
@@ -43,6 +47,16 @@ public class HalfrailApp extends Application {
             }
         });
         stage.show();
+    }
+
+    /** Preferences key of the recent-files list (one path a line). */
+    static final String RECENT_KEY = "recentDesignFiles";
+
+    /** The recent files, kept in the user's preferences for this package. */
+    private static RecentFiles storedRecentFiles() {
+        java.util.prefs.Preferences prefs = java.util.prefs.Preferences.userNodeForPackage(HalfrailApp.class);
+        List<String> stored = List.of(prefs.get(RECENT_KEY, "").split("\n"));
+        return new RecentFiles(stored, list -> prefs.put(RECENT_KEY, String.join("\n", list)));
     }
 
     /**

@@ -73,6 +73,7 @@ public final class WorkbenchModel {
     private final HeadroomSweepModel headroom;
     private final EditorPanelModel editor;
 
+    private RecentFiles recent = new RecentFiles(List.of(), l -> { });
     private long generation;
     /** The user's latest action, in words, put before the analysis summary in the status line. */
     private String lastAction = "";
@@ -268,6 +269,15 @@ public final class WorkbenchModel {
         return files.isPresent();
     }
 
+    /** Use {@code r} to remember the files opened and saved. */
+    public void useRecentFiles(RecentFiles r) {
+        this.recent = Objects.requireNonNull(r);
+    }
+
+    public RecentFiles recentFiles() {
+        return recent;
+    }
+
     public Optional<DesignFileActions> files() {
         return files;
     }
@@ -278,6 +288,7 @@ public final class WorkbenchModel {
         status.set("Opening " + path.getFileName() + "…");
         executor.submit(() -> f.read(path), d -> {
             replace(d, path);
+            recent.add(path);
             status.set("Opened " + path.getFileName());
         }, e -> status.set("Could not open " + path.getFileName() + ": " + e.getMessage()));
     }
@@ -292,6 +303,7 @@ public final class WorkbenchModel {
         }, written -> {
             saved = written;
             file.set(path);
+            recent.add(path);
             dirty.set(design.get() != saved);
             status.set("Saved " + path.getFileName());
         }, e -> status.set("Could not save " + path.getFileName() + ": " + e.getMessage()));

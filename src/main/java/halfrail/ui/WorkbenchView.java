@@ -126,6 +126,27 @@ public final class WorkbenchView extends BorderPane {
         MenuItem open = new MenuItem("Open…");
         open.setAccelerator(KeyCombination.keyCombination("Shortcut+O"));
         open.setOnAction(e -> openFile());
+        Menu recent = new Menu("Open recent");
+        recent.setDisable(!model.filesAvailable());
+        Runnable fill = () -> {
+            recent.getItems().clear();
+            for (java.nio.file.Path p : model.recentFiles().files()) {
+                MenuItem item = new MenuItem(p.getFileName() + "  —  " + p.getParent());
+                item.setOnAction(e -> {
+                    if (confirmDiscard()) {
+                        model.open(p);
+                    }
+                });
+                recent.getItems().add(item);
+            }
+            if (recent.getItems().isEmpty()) {
+                MenuItem none = new MenuItem("(none yet)");
+                none.setDisable(true);
+                recent.getItems().add(none);
+            }
+        };
+        recent.setOnShowing(e -> fill.run());
+        fill.run();
         MenuItem save = new MenuItem("Save");
         save.setAccelerator(KeyCombination.keyCombination("Shortcut+S"));
         save.setOnAction(e -> save(false));
@@ -151,7 +172,7 @@ public final class WorkbenchView extends BorderPane {
         plot.setOnAction(e -> savePicture(headroomChart, "headroom.png"));
         MenuItem window = new MenuItem("Save a picture of the window…");
         window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
-        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, save, saveAs, new SeparatorMenuItem(), csv,
+        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), csv,
                 picture, plot, window, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");

@@ -362,6 +362,7 @@ class WorkbenchModelTest {
         m.saveAs(path);
         assertFalse(m.dirtyProperty().get());
         assertEquals(path, m.fileProperty().get());
+        assertEquals(path.toAbsolutePath().normalize(), m.recentFiles().files().get(0));
         Design saved = m.design();
         m.replace(SampleDesigns.missingLegCapacitor(), null);
         m.open(path);
