@@ -16,6 +16,7 @@ import org.testfx.framework.junit5.ApplicationExtension;
 import org.testfx.framework.junit5.Start;
 import org.testfx.util.WaitForAsyncUtils;
 
+import java.util.Optional;
 import java.util.Set;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
@@ -175,5 +176,23 @@ class WorkbenchViewTest {
         // the equal divider follows the rail: mid-rail at half the end-point voltage (voltage-divider rule)
         assertEquals(endPoint / 2, ladder.geometry().ladder().midRailVolts(), 0.05);
         assertTrue(robot.lookup("#status").queryLabeled().getText().contains("trial supply"));
+    }
+
+    @Test
+    void clickingTheRestPointOfAStuckStageSelectsTheFindingAboutIt(FxRobot robot) {
+        robot.interact(() -> view.model().replace(SampleDesigns.missingLegCapacitor(), null));
+        WaitForAsyncUtils.waitForFxEvents();
+        LadderCanvas ladder = view.ladders().canvases().get(0);
+        LadderGeometry g = ladder.geometry();
+        // pick a level on the output shaft that a finding points at, and click where it is drawn
+        Finding aimed = view.findings().list().getItems().stream()
+                .filter(f -> f.level().filter(l -> l == LadderLevel.QUIESCENT).isPresent()).findFirst().orElseThrow();
+        LadderGeometry.Mark rest = g.mark(LadderLevel.QUIESCENT).orElseThrow();
+        javafx.geometry.Point2D screen = ladder.localToScreen(g.labelX() + 10, rest.labelY());
+        robot.clickOn(screen);
+        WaitForAsyncUtils.waitForFxEvents();
+        Finding selected = view.findings().list().getSelectionModel().getSelectedItem();
+        assertEquals(aimed.opAmp(), selected.opAmp());
+        assertEquals(Optional.of(LadderLevel.QUIESCENT), selected.level());
     }
 }
