@@ -18,19 +18,19 @@ public final class ReadingsPanel {
     public ReadingsPanel(ReadingsPanelModel model) {
         stages.setId("readings");
         stages.setItems(model.readings());
-        stages.getColumns().add(tip(column("op-amp", ReadingsPanelModel.Reading::opAmp, 90), "The stage's name, or the reference buffer."));
-        stages.getColumns().add(tip(column("rest", ReadingsPanelModel.Reading::rest, 62), "Quiescent point: the output voltage with no signal, at the analysed supply."));
-        stages.getColumns().add(tip(column("window", ReadingsPanelModel.Reading::window, 118), "Swing window: the lowest and highest voltage the output can reach at this supply."));
-        stages.getColumns().add(tip(column("headroom", ReadingsPanelModel.Reading::headroom, 74), "Room between the signal's peaks at the nominal level and the nearer swing limit, in dB (negative: it clips)."));
-        stages.getColumns().add(tip(column("nearer", ReadingsPanelModel.Reading::nearer, 58), "Which limit the signal meets first: the top (towards the supply) or the floor (towards ground)."));
-        stages.getColumns().add(tip(column("bias ×", ReadingsPanelModel.Reading::biasGain, 54), "DC gain from the mid-rail reference to the output; 1 for a correctly built stage."));
-        stages.getColumns().add(tip(column("leakage", ReadingsPanelModel.Reading::leakageShift, 80), "How far the rest point moves when every capacitor leaks at its limit value."));
+        stages.getColumns().add(tip(column("op-amp", ReadingsPanelModel.Reading::opAmp, 70), "The stage's name, or the reference buffer."));
+        stages.getColumns().add(tip(column("rest", ReadingsPanelModel.Reading::rest, 56), "Quiescent point: the output voltage with no signal, at the analysed supply."));
+        stages.getColumns().add(tip(column("window", ReadingsPanelModel.Reading::window, 100), "Swing window: the lowest and highest voltage the output can reach at this supply."));
+        stages.getColumns().add(tip(column("headroom", ReadingsPanelModel.Reading::headroom, 66), "Room between the signal's peaks at the nominal level and the nearer swing limit, in dB (negative: it clips)."));
+        stages.getColumns().add(tip(column("nearer", ReadingsPanelModel.Reading::nearer, 50), "Which limit the signal meets first: the top (towards the supply) or the floor (towards ground)."));
+        stages.getColumns().add(tip(column("bias ×", ReadingsPanelModel.Reading::biasGain, 46), "DC gain from the mid-rail reference to the output; 1 for a correctly built stage."));
+        stages.getColumns().add(tip(column("leakage", ReadingsPanelModel.Reading::leakageShift, 66), "How far the rest point moves when every capacitor leaks at its limit value."));
         stages.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
         stages.setPlaceholder(new Label("no numbers: the circuit could not be solved"));
         TableView<ReadingsPanelModel.Figure> figures = new TableView<>();
         figures.setId("figures");
         figures.setItems(model.figures());
-        figures.getColumns().add(column("figure", ReadingsPanelModel.Figure::name, 150));
+        figures.getColumns().add(column("figure", ReadingsPanelModel.Figure::name, 130));
         figures.getColumns().add(column("value", ReadingsPanelModel.Figure::value, 170));
         figures.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
         Label t1 = new Label("Op-amp readings at the analysed supply");
