@@ -1,0 +1,97 @@
+package halfrail.ui;
+
+import halfrail.design.Design;
+import javafx.application.Application;
+import javafx.scene.Scene;
+import javafx.stage.Stage;
+
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * The desktop application: one main window on the built-in sample design, analysed in the
+ * background. Started through {@link AppLauncher#launch(String[])} so that the launcher class
+ * needs no JavaFX on its own class path.
+ */
+public class HalfrailApp extends Application {
+    /** Width of the main window when it opens, px. */
+    public static final double WINDOW_WIDTH = 1440;
+    /** Height of the main window when it opens, px. */
+    public static final double WINDOW_HEIGHT = 900;
+
+    private static volatile Optional<DesignFileActions> fileActions = Optional.empty();
+
+    private AnalysisExecutor executor;
+    private WorkbenchModel model;
+
+    /** Give the app its design-file support before it starts (null for none). */
+    public static void useFileActions(DesignFileActions actions) {
+        fileActions = Optional.ofNullable(actions);
+    }
+
+    @Override
+    public void start(Stage stage) {
+        executor = new BackgroundAnalysisExecutor();
+        model = new WorkbenchModel(executor, SampleDesigns.instrumentBoost(), fileActions);
+        model.darkProperty().set(systemPrefersDark(System.getenv("GTK_THEME")));
+        if (fileActions.isPresent()) {
+            model.useRecentFiles(storedRecentFiles());
+        }
+        WorkbenchView view = new WorkbenchView(model);
+        stage.setTitle("Halfrail — single-supply stage checker");
+        stage.setScene(scene(view));
+        stage.setOnCloseRequest(e -> {
+            if (!view.confirmDiscard()) {
+                e.consume();
+            }
+        });
+        stage.show();
+    }
+
+    /** Preferences key of the recent-files list (one path a line). */
+    static final String RECENT_KEY = "recentDesignFiles";
+
+    /** The recent files, kept in the user's preferences for this package. */
+    private static RecentFiles storedRecentFiles() {
+        java.util.prefs.Preferences prefs = java.util.prefs.Preferences.userNodeForPackage(HalfrailApp.class);
+        List<String> stored = List.of(prefs.get(RECENT_KEY, "").split("\n"));
+        return new RecentFiles(stored, list -> prefs.put(RECENT_KEY, String.join("\n", list)));
+    }
+
+    /**
+     * Whether the desktop asks for a dark appearance. JavaFX 17 does not report the system's
+     * choice, so this reads the GTK theme variable, whose {@code :dark} suffix selects a theme's
+     * dark variant (GTK 3 documentation, "Running and debugging GTK applications").
+     */
+    static boolean systemPrefersDark(String gtkTheme) {
+        return gtkTheme != null && gtkTheme.toLowerCase(java.util.Locale.ROOT).endsWith(":dark");
+    }
+
+    @Override
+    public void stop() {
+        if (executor != null) {
+            executor.shutdown();
+        }
+    }
+
+    /** The main window's view-model (null before {@link #start}). */
+    public WorkbenchModel model() {
+        return model;
+    }
+
+    /** A scene with the app's stylesheet around {@code view}. */
+    public static Scene scene(WorkbenchView view) {
+        javafx.geometry.Rectangle2D screen = javafx.stage.Screen.getPrimary().getVisualBounds();
+        Scene scene = new Scene(view, Math.min(WINDOW_WIDTH, screen.getWidth()),
+                Math.min(WINDOW_HEIGHT, screen.getHeight()));
+        scene.getStylesheets().add(Objects.requireNonNull(
+                HalfrailApp.class.getResource("halfrail.css"), "halfrail.css").toExternalForm());
+        return scene;
+    }
+
+    /** A main window's view and view-model on {@code design}, analysed through {@code executor}. */
+    public static WorkbenchView workbench(AnalysisExecutor executor, Design design) {
+        return new WorkbenchView(new WorkbenchModel(executor, design, fileActions));
+    }
+}

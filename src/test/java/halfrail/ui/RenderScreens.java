@@ -1,0 +1,101 @@
+package halfrail.ui;
+
+import javafx.embed.swing.SwingFXUtils;
+import javafx.scene.Scene;
+import javafx.scene.image.WritableImage;
+import org.junit.jupiter.api.Tag;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.condition.EnabledIfSystemProperty;
+import org.testfx.api.FxToolkit;
+import org.testfx.util.WaitForAsyncUtils;
+
+import javax.imageio.ImageIO;
+import java.awt.image.BufferedImage;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.TimeUnit;
+
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+/**
+ * Renders the main window headlessly (Monocle) to {@code docs/images/}. Not part of the normal
+ * test run; make the pictures with
+ * {@code mvn -B test -Dtest='halfrail/ui/RenderScreens*' -Dhalfrail.pictures=true}.
+ */
+@Tag("pictures")
+@EnabledIfSystemProperty(named = "halfrail.pictures", matches = "true")
+class RenderScreens {
+    static final Path OUT = Path.of("docs", "images");
+
+    static {
+        // Monocle's headless screen is 1280 × 800 unless told otherwise; the pictures show the full window
+        System.setProperty("headless.geometry", (int) HalfrailApp.WINDOW_WIDTH + "x" + (int) HalfrailApp.WINDOW_HEIGHT + "-32");
+    }
+
+    @Test
+    void rendersTheMainWindowOnTheSampleDesign() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> { }, "main-window.png");
+        assertTrue(Files.size(file) > 10_000, "a real picture, not an empty one");
+    }
+
+    @Test
+    void rendersTheMainWindowOnTheFaultySample() throws Exception {
+        Path file = render(SampleDesigns.missingLegCapacitor(),
+                v -> v.findings().list().getSelectionModel().select(0), "main-window-faulty.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersTheHeadroomPlotOfTheTwoStageDesign() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.model().editor().addStage();
+            v.bottomTabs().getSelectionModel().select(1);
+        }, "headroom-plot.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersTheMainWindowInTheDarkAppearance() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> v.model().darkProperty().set(true), "main-window-dark.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersATwoStageDesignOnTheSupplyTrialAtTheEndPoint() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.model().editor().addStage();
+            v.model().trialVoltsProperty().set(v.model().trialLowVoltsProperty().get());
+            v.model().trialActiveProperty().set(true);
+        }, "main-window-trial.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    /** Render a window on {@code design} after {@code prepare} has acted on it (on the FX thread). */
+    static Path render(halfrail.design.Design design, java.util.function.Consumer<WorkbenchView> prepare, String name)
+            throws Exception {
+        FxToolkit.registerPrimaryStage();
+        WorkbenchView view = WaitForAsyncUtils.asyncFx(
+                () -> HalfrailApp.workbench(new SynchronousAnalysisExecutor(), design)).get(30, TimeUnit.SECONDS);
+        Scene scene = WaitForAsyncUtils.asyncFx(() -> HalfrailApp.scene(view)).get();
+        FxToolkit.setupStage(stage -> {
+            stage.setScene(scene);
+            stage.show();
+        });
+        WaitForAsyncUtils.asyncFx(() -> prepare.accept(view)).get(60, TimeUnit.SECONDS);
+        WaitForAsyncUtils.waitForFxEvents();
+        WritableImage image = WaitForAsyncUtils.asyncFx(() -> scene.snapshot(null)).get(30, TimeUnit.SECONDS);
+        BufferedImage png = SwingFXUtils.fromFXImage(image, null);
+        Files.createDirectories(OUT);
+        Path file = OUT.resolve(name);
+        write(png, file);
+        FxToolkit.cleanupStages();
+        return file;
+    }
+
+    private static void write(BufferedImage png, Path file) throws IOException {
+        if (!ImageIO.write(png, "png", file.toFile())) {
+            throw new IOException("no PNG writer");
+        }
+    }
+}
