@@ -11,8 +11,9 @@ import javafx.application.Application;
 public final class AppLauncher {
     private AppLauncher() {}
 
-    /** Open the main window and return when it is closed. */
+    /** Open the main window, with design files for open and save, and return when it is closed. */
     public static void launch(String[] args) {
+        HalfrailApp.useFileActions(new JsonDesignFiles());
         Application.launch(HalfrailApp.class, args);
     }
 }

@@ -94,9 +94,8 @@ public final class HeadroomSweepModel {
                     continue;
                 }
                 List<Point> pts = byOpAmp.computeIfAbsent(st.label(), k -> new ArrayList<>());
-                double db = st.nominal().headroomDb();
-                if (!st.nominal().saturated() && Double.isFinite(db)) {
-                    pts.add(new Point(v, db));
+                if (!st.nominal().saturated() && st.nominal().headroomDb().isPresent()) {
+                    pts.add(new Point(v, st.nominal().headroomDb().getAsDouble()));
                 }
             }
         }

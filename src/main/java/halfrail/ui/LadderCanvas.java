@@ -358,12 +358,14 @@ public final class LadderCanvas extends Region {
         if (!s.signal()) {
             return String.format(Locale.ROOT, "holds %.2f V for the stages", l.quiescentVolts());
         }
-        double db = s.nominal().headroomDb();
         String side = s.nominal().clipsFirst() == Side.HIGH ? "top" : "floor";
-        if (Double.isInfinite(db)) {
+        if (!s.nominal().hasSignal()) {
             return "no signal reaches this output";
         }
-        return String.format(Locale.ROOT, "headroom %.1f dB, nearer the %s", db, side);
+        if (s.nominal().headroomDb().isEmpty()) {
+            return "no room to swing, nearer the " + side;
+        }
+        return String.format(Locale.ROOT, "headroom %.1f dB, nearer the %s", s.nominal().headroomDb().getAsDouble(), side);
     }
 
     private Color colour(LadderLevel level) {

@@ -45,10 +45,10 @@ public final class ReadingsPanelModel {
             String head;
             if (s.nominal().saturated()) {
                 head = "on a rail";
-            } else if (!s.signal() || Double.isInfinite(s.nominal().headroomDb())) {
-                head = "—";
+            } else if (!s.signal() || s.nominal().headroomDb().isEmpty()) {
+                head = s.signal() && s.nominal().hasSignal() ? "none" : "—";
             } else {
-                head = String.format(Locale.ROOT, "%.1f dB", s.nominal().headroomDb());
+                head = String.format(Locale.ROOT, "%.1f dB", s.nominal().headroomDb().getAsDouble());
             }
             rows.add(new Reading(s.label(), v(s.outputVolts()),
                     String.format(Locale.ROOT, "%.2f–%.2f V", s.nominal().swingLowVolts(), s.nominal().swingHighVolts()), head,
