@@ -365,7 +365,7 @@ public final class ConvertCommand implements Callable<Integer> {
     }
 
     private static void row(StringBuilder sb, String label, String before, String after) {
-        sb.append(String.format(Locale.ROOT, "  %-20s %-32s %s%n", label, before, after));
+        sb.append(String.format(Locale.ROOT, "  %-22s %-32s %s%n", label, before, after));
     }
 
     private static String swing(SupplyPoint p) {

@@ -50,6 +50,10 @@ import java.util.OptionalDouble;
  * shift, even with the smallest bias resistor allowed ({@link #MIN_BIAS_OHMS}), exceeds
  * {@link #BIAS_SHIFT_SHARE} of the design's bias-shift limit, a follower buffers the divider
  * ({@link ReferenceKind#DIVIDER_BUFFERED}) so that only its own bias current meets the divider.
+ * <b>Off mid-rail:</b> when the op-amps' output windows are lopsided (a part that reaches ground
+ * but not the positive rail), one divider resistor is raised in E24 (so the divider never draws
+ * more) to put the reference where the worst room for the signal over the supply points is
+ * largest, if that gains at least {@link #CENTRING_MIN_GAIN}; the end-point usually decides.
  *
  * <p><b>Corners.</b> The first stage's input capacitor, each non-inverting stage's leg
  * capacitor and the output capacitor each form a high-pass network. With n networks, each
@@ -104,6 +108,10 @@ public final class Converter {
     public static final double BIAS_SHIFT_SHARE = 0.5;
     /** Smallest R1 left after scaling R1 and R2 down, Ω (common practice: lower loads the op-amp). */
     public static final double MIN_LEG_OHMS = 100;
+    /** Largest ratio between the two divider resistors when the reference is moved off mid-rail. */
+    public static final double CENTRING_MAX_RATIO = 4;
+    /** Moving the reference off mid-rail must raise the worst room for the signal by at least this fraction. */
+    public static final double CENTRING_MIN_GAIN = 0.1;
     /** The reference's decoupling corner lies this factor below the band's low end. */
     public static final double REFERENCE_CORNER_FACTOR = 10;
     /** Isolation resistor between a reference buffer and its capacitor, Ω (common practice: stability into a large capacitor). */
@@ -180,6 +188,9 @@ public final class Converter {
         private final List<OpAmpChoice> opAmps = new ArrayList<>();
         private final List<double[]> resistors = new ArrayList<>();
         private double dividerOhms = DEFAULT_DIVIDER_OHMS;
+        private double upperOhms = DEFAULT_DIVIDER_OHMS;
+        private double lowerOhms = DEFAULT_DIVIDER_OHMS;
+        private final List<double[]> peaks = new ArrayList<>();
         private double biasOhms = DEFAULT_BIAS_OHMS;
         private OpAmpChoice buffer;
         private OptionalDouble currentBudget = OptionalDouble.empty();
@@ -204,10 +215,11 @@ public final class Converter {
                             + " (" + Units.volts(original.totalVolts()) + " total)",
                     Units.volts(supply.nominalVolts()) + " nominal, " + Units.volts(supply.lowVolts()) + " to "
                             + Units.volts(supply.highVolts()),
-                    "one rail: every stage now rests at a mid-rail reference instead of at ground"));
+                    "one rail: every stage now rests at a reference near mid-rail instead of at ground"));
             chooseOpAmps();
             checkResistors();
             chooseReference();
+            centreReference();
 
             double scale = 1;
             Build build = null;
@@ -312,6 +324,7 @@ public final class Converter {
                                         best.typical().swingHighVolts())) + " of the rails"));
                     }
                 }
+                peaks.add(new double[] {plusPeak, peakOut});
                 peakIn = peakOut;
             }
         }
@@ -497,6 +510,68 @@ public final class Converter {
                     Math.min(wanted, maxBias))));
         }
 
+        private String centring = "";
+
+        /**
+         * Move the reference off mid-rail when the op-amps' output windows are lopsided (a part
+         * that reaches ground but stops well short of the positive rail): of the divider pairs
+         * that keep one resistor at the chosen value and raise the other in E24 (so the divider
+         * never draws more), take the one whose worst room for the signal, over the supply
+         * points and stages, is largest; keep equal resistors unless that gains at least
+         * {@link #CENTRING_MIN_GAIN}.
+         */
+        private void centreReference() {
+            upperOhms = dividerOhms;
+            lowerOhms = dividerOhms;
+            double equal = worstRoom(0.5);
+            double best = equal;
+            double bestUpper = dividerOhms;
+            double bestLower = dividerOhms;
+            for (double x : ESeries.E24.values(dividerOhms, CENTRING_MAX_RATIO * dividerOhms)) {
+                double[][] pairs = {{x, dividerOhms}, {dividerOhms, x}};
+                for (double[] pair : pairs) {
+                    double w = worstRoom(pair[1] / (pair[0] + pair[1]));
+                    if (w > best) {
+                        best = w;
+                        bestUpper = pair[0];
+                        bestLower = pair[1];
+                    }
+                }
+            }
+            if (best > equal * (1 + CENTRING_MIN_GAIN) && best > 0) {
+                upperOhms = bestUpper;
+                lowerOhms = bestLower;
+                centring = "worst room for the signal " + String.format(java.util.Locale.ROOT, "%.2f", best)
+                        + " times its peak instead of " + String.format(java.util.Locale.ROOT, "%.2f", Math.max(0, equal));
+            }
+        }
+
+        /** The smallest ratio of room to signal peak over every signal op-amp and supply point, with the reference at {@code k} of the rail; −∞ when an input leaves its range. */
+        private double worstRoom(double k) {
+            double worst = Double.POSITIVE_INFINITY;
+            for (double v : new double[] {supply.lowVolts(), supply.nominalVolts(), supply.highVolts()}) {
+                double ref = k * v;
+                for (int i = 0; i < opAmps.size(); i++) {
+                    OpAmpParams p = params(i);
+                    double plusPeak = peaks.get(i)[0];
+                    double outPeak = peaks.get(i)[1];
+                    if (ref - plusPeak < p.commonModeLowVolts() || ref + plusPeak > v - p.commonModeHighVolts()) {
+                        return Double.NEGATIVE_INFINITY;
+                    }
+                    double room = Math.min(ref - p.swingLowVolts(), v - p.swingHighVolts() - ref);
+                    worst = Math.min(worst, room / Math.max(outPeak, 1e-12));
+                }
+                if (buffer != null) {
+                    OpAmpParams b = DesignCircuits.params(buffer, "reference.buffer");
+                    if (ref < b.commonModeLowVolts() || ref > v - b.commonModeHighVolts() || ref < b.swingLowVolts()
+                            || ref > v - b.swingHighVolts()) {
+                        return Double.NEGATIVE_INFINITY;
+                    }
+                }
+            }
+            return worst;
+        }
+
         private OpAmpArchetype bufferFor(double rth, double allowed) {
             double mid = supply.lowVolts() / 2;
             return PartsLibrary.builtIn().opAmpArchetypes().stream()
@@ -530,7 +605,7 @@ public final class Converter {
             double each = targetHz * Math.sqrt(Math.pow(2, 1.0 / networks) - 1) / CORNER_MARGIN;
             double tau = 0;
             double rs = req.signal().sourceOhms();
-            double rth = dividerOhms / 2;
+            double rth = upperOhms * lowerOhms / (upperOhms + lowerOhms);
             List<Stage> stages = new ArrayList<>();
             for (int i = 0; i < ss.size(); i++) {
                 DualRailStage s = ss.get(i);
@@ -589,20 +664,26 @@ public final class Converter {
                     CapacitorRules.Position.REFERENCE, rth, supply, drift);
             tau += rth * cref.spec().farads();
             Reference reference;
-            String refText = "divider " + Units.ohms(dividerOhms) + " + " + Units.ohms(dividerOhms) + ", "
+            double refFraction = lowerOhms / (upperOhms + lowerOhms);
+            String refText = "divider " + Units.ohms(upperOhms) + " + " + Units.ohms(lowerOhms) + ", "
                     + capText(cref.spec());
-            String refWhy = "mid-rail " + Units.volts(supply.nominalVolts() / 2) + " from two equal resistors (E24),"
-                    + " drawing " + Units.amps(supply.nominalVolts() / (2 * dividerOhms))
+            String refWhy = (upperOhms == lowerOhms ? "mid-rail " + Units.volts(supply.nominalVolts() / 2)
+                    + " from two equal resistors (E24),"
+                    : Units.volts(refFraction * supply.nominalVolts()) + " (" + String.format(java.util.Locale.ROOT,
+                    "%.0f %%", 100 * refFraction) + " of the rail) from two E24 resistors, at the centre of the"
+                    + " op-amps' output window at the end-point supply rather than at mid-rail (" + centring
+                    + "; at the nominal supply it then sits off the window's centre, which the checks note),")
+                    + " drawing " + Units.amps(supply.nominalVolts() / (upperOhms + lowerOhms))
                     + (currentBudget.isPresent() ? " within the current budget " + Units.amps(currentBudget.getAsDouble())
                     : "") + "; decoupled at " + Units.hertz(1 / (2 * Math.PI * rth * cref.spec().farads()))
                     + ", a decade below the band, so supply noise and ripple stay off the inputs; " + cref.rule();
             if (buffer == null) {
-                reference = Reference.decoupled(dividerOhms, dividerOhms, cref.spec(), biasOhms);
+                reference = Reference.decoupled(upperOhms, lowerOhms, cref.spec(), biasOhms);
             } else {
                 CapacitorRules.Choice cb = CapacitorRules.choose(scale / (2 * Math.PI * ISOLATION_OHMS * refCorner),
                         CapacitorRules.Position.BUFFER_OUTPUT, ISOLATION_OHMS, supply, drift);
                 tau += ISOLATION_OHMS * cb.spec().farads();
-                reference = Reference.buffered(dividerOhms, dividerOhms, cref.spec(), biasOhms, buffer, ISOLATION_OHMS,
+                reference = Reference.buffered(upperOhms, lowerOhms, cref.spec(), biasOhms, buffer, ISOLATION_OHMS,
                         cb.spec());
                 refText += "; buffered, " + Units.ohms(ISOLATION_OHMS) + " into " + capText(cb.spec());
                 refWhy += "; the buffer's " + Units.ohms(ISOLATION_OHMS) + " isolation keeps it stable into "

@@ -91,6 +91,21 @@ class ConverterTest {
     }
 
     @Test
+    @DisplayName("a part that stops 1.5 V below the positive rail but 20 mV above ground gets its reference below mid-rail, and more end-point headroom")
+    void aLopsidedOutputWindowMovesTheReferenceBelowMidRail() {
+        Reference ref = nonInverting.design().reference();
+        assertTrue(ref.lowerOhms() < ref.upperOhms(), ref.toString());
+        assertTrue(ESeries.E24.contains(ref.upperOhms()) && ESeries.E24.contains(ref.lowerOhms()));
+        Design mid = nonInverting.design().withReference(ref.withDivider(ref.lowerOhms(), ref.lowerOhms()));
+        double centred = nonInverting.comparison().after().point("end-point").headroomDb();
+        double atMid = halfrail.check.DesignAnalysis.analyse(mid, false).stages().stream()
+                .filter(StageReport::signal).findFirst().orElseThrow().endPoint().headroomDb();
+        assertTrue(centred > atMid + 1, "end-point headroom " + centred + " dB against " + atMid + " dB at mid-rail");
+        assertTrue(inverting.design().reference().upperOhms() == inverting.design().reference().lowerOhms(),
+                "a rail-to-rail part keeps the reference at mid-rail");
+    }
+
+    @Test
     void anOpAmpThatCannotRunOnTheSupplyIsReplacedAndSaidSo() {
         Change c = nonInverting.changes().stream().filter(x -> x.kind() == ChangeKind.OP_AMP_REPLACED).findFirst()
                 .orElseThrow();
@@ -119,7 +134,9 @@ class ConverterTest {
         assertTrue(before.point("nominal").symmetricSwingVolts() > after.point("nominal").symmetricSwingVolts());
         assertTrue(after.point("end-point").symmetricSwingVolts() < after.point("fresh").symmetricSwingVolts());
         assertTrue(after.point("end-point").headroomDb() >= 0, "no clipping at the end-point");
-        assertEquals(9.0 / 2, after.point("nominal").restVolts(), 0.05, "rests at mid-rail (9 V block, 9.0 V nominal)");
+        Reference ref = nonInverting.design().reference();
+        double k = ref.lowerOhms() / (ref.upperOhms() + ref.lowerOhms());
+        assertEquals(k * 9.0, after.point("nominal").restVolts(), 0.05, "rests at the reference (9 V block, 9.0 V nominal)");
         assertTrue(before.lowerCornerHz().isEmpty(), "the DC-coupled original passes DC");
         assertEquals(3, after.points().size());
     }
