@@ -245,6 +245,28 @@ class ConverterTest {
         assertFalse(r.succeeded());
     }
 
+    @Test
+    @DisplayName("a runtime limit becomes a current budget: 550 mA·h over 500 h is 1.1 mA (9 V block capacity, IEC 60086-2 via secondary sources)")
+    void aRuntimeLimitIsMetOrItsMissIsStatedInAmps() {
+        ConversionRequest ok = ConversionRequests.nonInvertingToNineVolts()
+                .withLimits(ConversionLimits.none().withMinRuntimeHours(500));
+        ConversionResult r = Converter.convert(ok);
+        assertEquals(500, r.design().thresholds().minRuntimeHours());
+        assertTrue(r.report().findings("RUNTIME_SHORT").isEmpty(), r.report().findings().toString());
+        assertTrue(r.report().battery().orElseThrow().runtimeHours().orElseThrow() >= 500);
+        assertTrue(r.limitsMet(), r.conflicts().toString());
+
+        ConversionRequest tooLong = ConversionRequests.nonInvertingToNineVolts()
+                .withLimits(ConversionLimits.none().withMinRuntimeHours(5000));
+        ConversionResult miss = Converter.convert(tooLong);
+        Conflict c = miss.conflicts().stream().filter(x -> x.kind() == ConflictKind.CURRENT_LIMIT_UNREACHABLE)
+                .findFirst().orElseThrow(() -> new AssertionError(miss.conflicts().toString()));
+        assertEquals("A", c.unit());
+        assertEquals(0.55 / 5000, c.limit(), 1e-12);
+        assertEquals(c.achieved() - c.limit(), c.missedBy(), 1e-12);
+        assertFalse(miss.succeeded());
+    }
+
     static List<CapacitorSpec> capacitors(Design d) {
         List<CapacitorSpec> list = new ArrayList<>();
         Reference ref = d.reference();
