@@ -50,7 +50,7 @@ public record SwingReport(double supplyVolts, double quiescentVolts, double swin
      * {@link Double#POSITIVE_INFINITY} when the output carries no signal (it never clips),
      * {@link Double#NEGATIVE_INFINITY} when there is no room at all.
      */
-    double headroomDbOrInfinite() {
+    public double headroomDbOrInfinite() {
         if (headroomDb.isPresent()) {
             return headroomDb.getAsDouble();
         }

@@ -806,7 +806,7 @@ public final class Converter {
 
         private static SupplyPoint point(String label, SwingReport s) {
             return new SupplyPoint(label, s.supplyVolts(), s.quiescentVolts(), s.availableLowVolts(),
-                    s.availableHighVolts(), s.signalPeakVolts(), s.headroomDb());
+                    s.availableHighVolts(), s.signalPeakVolts(), s.headroomDbOrInfinite());
         }
     }
 }
