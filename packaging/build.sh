@@ -46,6 +46,12 @@ build_app_image() {
   cp "$here/linux/halfrail-design.xml" "$out/$name/lib/"
 }
 
+# JavaFX's native libraries sit inside the jar and are unpacked at run time, so jpackage's
+# look-up of the runtime's libraries does not see them: GTK 3 for its windows (libglassgtk3),
+# OpenGL and the XFree86-VidMode extension for hardware rendering (libprism_es2; without them
+# JavaFX draws in software). Found with ldd on the .so files in target/halfrail.jar.
+fx_deps="libgtk-3-0, libgl1, libxxf86vm1"
+
 build_deb() {
   [[ -d "$out/$name" ]] || build_app_image
   rm -f "$out/${name}_"*.deb
@@ -66,6 +72,7 @@ build_deb() {
     --icon "$here/icons/halfrail-256.png" \
     --linux-package-name "$name" \
     --linux-deb-maintainer "halfrail-packaging@example.org" \
+    --linux-package-deps "$fx_deps" \
     --linux-app-category electronics \
     --linux-menu-group "Development;Electronics;Engineering;" \
     --linux-shortcut \

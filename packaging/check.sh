@@ -73,7 +73,9 @@ field() { sed -n "s/^ $1: //p" <<<"$info"; }
 [[ "$(field Architecture)" == "$(dpkg --print-architecture)" ]] || fail "Architecture is '$(field Architecture)'"
 [[ "$(field Section)" == electronics ]] || fail "Section is '$(field Section)'"
 [[ -n "$(field Maintainer)" && -n "$(field Description)" ]] || fail "Maintainer or Description is empty"
-grep -qw xdg-utils <<<"$(field Depends)" || fail "Depends lacks xdg-utils (postinst uses it)"
+for dep in xdg-utils libgtk-3-0 libgl1 libc6; do # postinst's tools, JavaFX's and the runtime's libraries
+  grep -qE "(^|, )$dep(,|$| )" <<<"$(field Depends)" || fail "Depends lacks $dep"
+done
 
 contents="$(dpkg-deb -c "$deb")"
 has() { # $1 path in the package, $2 mode prefix
