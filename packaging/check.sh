@@ -111,7 +111,7 @@ done
 
 dpkg-deb -x "$deb" "$work/root"
 desktop="$work/root/opt/halfrail/lib/halfrail-halfrail.desktop"
-grep -qx 'Exec=/opt/halfrail/bin/halfrail' "$desktop" || fail "the desktop entry does not start /opt/halfrail/bin/halfrail"
+grep -qx 'Exec=/opt/halfrail/bin/halfrail %f' "$desktop" || fail "the desktop entry does not start /opt/halfrail/bin/halfrail with the file"
 grep -qx 'Icon=halfrail' "$desktop" || fail "the desktop entry's icon is not 'halfrail'"
 grep -qx 'MimeType=application/x-halfrail-design;' "$desktop" || fail "the desktop entry names no design-file type"
 grep -q 'type="application/x-halfrail-design"' "$work/root/opt/halfrail/lib/halfrail-design.xml" \
