@@ -17,6 +17,7 @@ import halfrail.parts.LeakageLevel;
 import halfrail.parts.PartsLibrary;
 import halfrail.solve.AcAnalysis;
 import halfrail.solve.AcPassband;
+import halfrail.solve.AcSweep;
 import halfrail.solve.AnalysisException;
 import halfrail.solve.DcSensitivity;
 import halfrail.solve.DcSolver;
@@ -57,6 +58,8 @@ public final class DesignAnalysis {
     static final double RESPONSE_RANGE_FACTOR = 1000;
     /** The power-on transient runs at most this many times the settle-time limit, s. */
     static final double POWER_ON_RUN_FACTOR = 5;
+    /** The plotted response curves run from this factor below the band to this factor above. */
+    static final double PLOT_RANGE_FACTOR = 100;
 
     private DesignAnalysis() {}
 
@@ -236,7 +239,30 @@ public final class DesignAnalysis {
                 ripple = rippleGain * supply.rippleVoltsPeak();
             }
             return new ChainReport(bandLow, bandHigh, pb.peakMagnitude(), pb.peakHz(), pb.lowerCornerHz(),
-                    pb.upperCornerHz(), ripple, rippleGain, referenceNoise());
+                    pb.upperCornerHz(), ripple, rippleGain, referenceNoise(), responses(ac));
+        }
+
+        /** The gain from the source to each signal stage's output and to the load, for plots. */
+        private List<ResponseCurve> responses(AcAnalysis ac) {
+            double lo = design.source().bandLowHz() / PLOT_RANGE_FACTOR;
+            double hi = design.source().bandHighHz() * PLOT_RANGE_FACTOR;
+            int points = (int) Math.ceil(Math.log10(hi / lo) * ResponseCurve.POINTS_PER_DECADE) + 1;
+            Map<String, String> nodes = new LinkedHashMap<>();
+            for (StageNodes sn : nominal.opAmps()) {
+                if (sn.signal()) {
+                    nodes.put(sn.label(), sn.out());
+                }
+            }
+            nodes.put(PowerOnTrace.LOAD, nominal.loadNode());
+            List<ResponseCurve> curves = new ArrayList<>();
+            nodes.forEach((label, node) -> {
+                AcSweep sw = ac.sweep(nominal.signalSource(), node, lo, hi, points);
+                OptionalDouble corner = ac.lowerCornerHz(nominal.signalSource(), node,
+                        design.source().bandLowHz() / RESPONSE_RANGE_FACTOR,
+                        design.source().bandHighHz() * RESPONSE_RANGE_FACTOR);
+                curves.add(new ResponseCurve(label, node, sw.frequenciesHz(), sw.magnitudeDb(), corner));
+            });
+            return curves;
         }
 
         /**
@@ -321,7 +347,33 @@ public final class DesignAnalysis {
             double step = r.loadStep(nominal.loadNode()).map(PowerOnResult.LoadStep::peakDeviationVolts).orElse(0.0);
             OptionalDouble settle = r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty());
             double[] times = r.timesSeconds();
-            return new PowerOnReport(r.settled(), settle, band, times[times.length - 1], pinned, step);
+            return new PowerOnReport(r.settled(), settle, band, times[times.length - 1], pinned, step,
+                    Optional.of(trace(r)));
+        }
+
+        /** Every op-amp output and the load, sampled at evenly spaced times over the run. */
+        private PowerOnTrace trace(PowerOnResult r) {
+            double[] accepted = r.timesSeconds();
+            double end = accepted[accepted.length - 1];
+            int n = Math.min(PowerOnTrace.MAX_SAMPLES, Math.max(2, accepted.length));
+            double[] t = new double[n];
+            for (int i = 0; i < n; i++) {
+                t[i] = i == n - 1 ? end : end * i / (n - 1);
+            }
+            Map<String, String> nodes = new LinkedHashMap<>();
+            for (StageNodes sn : nominal.opAmps()) {
+                nodes.put(sn.label(), sn.out());
+            }
+            nodes.put(PowerOnTrace.LOAD, nominal.loadNode());
+            Map<String, double[]> volts = new LinkedHashMap<>();
+            nodes.forEach((label, node) -> {
+                double[] v = new double[n];
+                for (int i = 0; i < n; i++) {
+                    v[i] = r.voltageAt(node, t[i]);
+                }
+                volts.put(label, v);
+            });
+            return new PowerOnTrace(t, volts);
         }
 
         private OperatingPoint solve(DesignCircuit dc, double[] guess) {
