@@ -53,6 +53,9 @@ public final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        if (System.getProperty("java.awt.headless") == null) {
+            System.setProperty("java.awt.headless", "true"); // the pictures are drawn off-screen
+        }
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         List<String> problems = new ArrayList<>();

@@ -450,7 +450,7 @@ public final class PdfReport {
     static final Map<Integer, String> ALTERNATIVES = Map.ofEntries(
             Map.entry(0x03A9, "ohm"), Map.entry(0x2126, "ohm"), Map.entry(0x2212, "-"), Map.entry(0x2264, "<="),
             Map.entry(0x2265, ">="), Map.entry(0x2192, "->"), Map.entry(0x25B6, ">"), Map.entry(0x221E, "inf"),
-            Map.entry(0x221A, "sqrt"), Map.entry(0x2225, "||"), Map.entry(0x2248, "~"), Map.entry(0x0394, "delta "),
+            Map.entry(0x221A, "sqrt"), Map.entry(0x2225, "||"), Map.entry(0x2016, "||"), Map.entry(0x2248, "~"), Map.entry(0x0394, "delta "),
             Map.entry(0x03C0, "pi"), Map.entry(0x2009, " "), Map.entry(0x202F, " "), Map.entry(0x00A0, " "),
             Map.entry(0x2032, "'"));
 

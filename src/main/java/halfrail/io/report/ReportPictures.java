@@ -458,7 +458,7 @@ public final class ReportPictures {
             }
             boolean isLoad = label.equals(PowerOnTrace.LOAD);
             g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(new BasicStroke(isLoad ? 4f : 1.8f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND));
+            g.setStroke(traceStroke(i, isLoad));
             g.draw(path);
         }
         if (p.settleSeconds().isPresent()) {
@@ -475,7 +475,7 @@ public final class ReportPictures {
             g.setFont(BOLD);
             g.setColor(Palette.CLIPPED);
             g.drawString("not settled within " + Fmt.seconds(p.simulatedSeconds()), (float) f.left + 8,
-                    (float) f.top + 14);
+                    (float) f.top + 30);
         }
 
         // key
@@ -485,7 +485,7 @@ public final class ReportPictures {
             String label = labels.get(i);
             boolean isLoad = label.equals(PowerOnTrace.LOAD);
             g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(new BasicStroke(isLoad ? 4f : 1.8f));
+            g.setStroke(traceStroke(i, isLoad));
             g.draw(new Line2D.Double(f.right + 14, ky - 4, f.right + 36, ky - 4));
             g.setColor(Palette.INK);
             g.drawString(fit(g, isLoad ? "load" : label + " output", 140), f.right + 42, ky);
@@ -578,7 +578,7 @@ public final class ReportPictures {
             }
             boolean isLoad = r.label().equals(PowerOnTrace.LOAD);
             g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(new BasicStroke(isLoad ? 4f : 1.8f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND));
+            g.setStroke(traceStroke(i, isLoad));
             g.draw(path);
         }
         g.setClip(clip);
@@ -600,7 +600,7 @@ public final class ReportPictures {
             ResponseCurve r = curves.get(i);
             boolean isLoad = r.label().equals(PowerOnTrace.LOAD);
             g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(new BasicStroke(isLoad ? 4f : 1.8f));
+            g.setStroke(traceStroke(i, isLoad));
             g.draw(new Line2D.Double(f.right + 14, ky - 4, f.right + 36, ky - 4));
             g.setColor(Palette.INK);
             g.drawString(fit(g, isLoad ? "load" : r.label() + " output", 140), f.right + 42, ky);
@@ -622,6 +622,17 @@ public final class ReportPictures {
         axisTitles(g, f, "frequency", "gain");
         g.dispose();
         return img;
+    }
+
+    /** Trace {@code i}'s line: the load wide, every other stage dashed so traces lying on each other both show. */
+    private static Stroke traceStroke(int i, boolean isLoad) {
+        if (isLoad) {
+            return new BasicStroke(4f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
+        }
+        if (i % 2 == 1) {
+            return new BasicStroke(2f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 10, new float[] {9, 5}, 0);
+        }
+        return new BasicStroke(2f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
     }
 
     /** Indexes of {@code labels} with the load's first, so the stages draw over it. */

@@ -222,8 +222,8 @@ class ReviewDocumentsTest {
                 }
             }
             PDFRenderer renderer = new PDFRenderer(doc);
-            for (int p = 0; p < Math.min(4, doc.getNumberOfPages()); p++) {
-                ImageIO.write(renderer.renderImageWithDPI(p, 80), "png",
+            for (int p = 0; p < doc.getNumberOfPages(); p++) {
+                ImageIO.write(renderer.renderImageWithDPI(p, 60), "png",
                         SampleReports.outputDir().resolve("samples-review-page-" + (p + 1) + ".png").toFile());
             }
         }
