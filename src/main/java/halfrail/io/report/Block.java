@@ -20,19 +20,25 @@ sealed interface Block {
 
     /**
      * A table of text cells. {@code verdicts}, when not empty, holds one verdict per row, shown
-     * in column {@code verdictColumn}.
+     * in column {@code verdictColumn}; {@code links}, when not empty, the id of the block each
+     * row's first cell leads to (the HTML links it).
      */
     record Table(String id, String caption, List<String> header, List<List<String>> rows, List<Verdict> verdicts,
-                 int verdictColumn) implements Block {
+                 int verdictColumn, List<String> links) implements Block {
         public Table {
             header = List.copyOf(header);
             rows = rows.stream().map(List::copyOf).toList();
             verdicts = List.copyOf(verdicts);
+            links = List.copyOf(links);
+        }
+
+        Table(String id, String caption, List<String> header, List<List<String>> rows) {
+            this(id, caption, header, rows, List.of(), -1, List.of());
         }
 
         /** A two-column table of names and values. */
         static Table pairs(String id, String caption, List<List<String>> rows) {
-            return new Table(id, caption, List.of(), rows, List.of(), -1);
+            return new Table(id, caption, List.of(), rows);
         }
     }
 

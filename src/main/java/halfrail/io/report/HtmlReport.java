@@ -40,6 +40,7 @@ public final class HtmlReport {
             "li.finding{border-left:6px solid #8a96a3;background:#fff;margin:0 0 10px;padding:8px 12px}",
             "li.finding.fail{border-color:#c8324b}li.finding.warn{border-color:#e08a1e}li.finding.note{border-color:#3c8d93}",
             "li.finding p{margin:3px 0}p.suggestion{color:#1f4e8c}p.parts{color:#6b7a89;font-size:12.5px}",
+            "a{color:#1f4e8c}",
             "code{font:12.5px 'DejaVu Sans Mono',monospace;background:#eeebe5;padding:0 4px;border-radius:3px}",
             "footer{margin-top:40px;color:#6b7a89;font-size:12px}");
 
@@ -131,7 +132,10 @@ public final class HtmlReport {
             h.append("<tr>");
             for (int c = 0; c < row.size(); c++) {
                 h.append("<td>");
-                if (c == t.verdictColumn() && !t.verdicts().isEmpty()) {
+                if (c == 0 && !t.links().isEmpty()) {
+                    h.append("<a href=\"#").append(esc(t.links().get(r))).append("\">").append(esc(row.get(c)))
+                            .append("</a>");
+                } else if (c == t.verdictColumn() && !t.verdicts().isEmpty()) {
                     h.append("<span class=\"verdict v-").append(t.verdicts().get(r).word()).append("\">")
                             .append(esc(row.get(c))).append("</span>");
                 } else {

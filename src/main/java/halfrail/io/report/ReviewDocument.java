@@ -45,14 +45,16 @@ final class ReviewDocument {
         if (review.hasSummary()) {
             List<List<String>> rows = new ArrayList<>();
             List<Verdict> verdicts = new ArrayList<>();
+            List<String> links = new ArrayList<>();
             for (Review.SummaryRow r : review.summary()) {
+                links.add(designId(r.entry()));
                 rows.add(List.of(r.design(), r.source(), r.stage(), r.verdict().word(),
                         r.codes().isEmpty() ? Fmt.NONE : String.join(", ", r.codes())));
                 verdicts.add(r.verdict());
             }
             b.add(new Block.Heading(2, "Summary", "summary"));
             b.add(new Block.Table("summary-table", "Every design and stage, worst first",
-                    List.of("Design", "File", "Stage", "Verdict", "Findings"), rows, verdicts, 3));
+                    List.of("Design", "File", "Stage", "Verdict", "Findings"), rows, verdicts, 3, links));
         }
         for (int i = 0; i < review.entries().size(); i++) {
             design(b, review.entries().get(i), designId(i));
@@ -81,7 +83,7 @@ final class ReviewDocument {
             StageReport st = r.stages().get(s);
             b.add(new Block.Heading(3, "Stage " + st.label(), id + "-stage-" + (s + 1)));
             b.add(new Block.Table(id + "-stage-" + (s + 1) + "-table", "Stage " + st.label(),
-                    List.of("Quantity", "Value"), stage(d, r, st), List.of(), -1));
+                    List.of("Quantity", "Value"), stage(d, r, st)));
         }
         if (!r.ladders().isEmpty()) {
             b.add(new Block.Heading(3, "Voltage ladder", id + "-ladder"));
@@ -211,8 +213,8 @@ final class ReviewDocument {
         rows.add(List.of("settle-up time (whole design)", r.powerOn().map(p -> p.settleSeconds().isPresent()
                 ? Fmt.seconds(p.settleSeconds().getAsDouble())
                 : "not settled within " + Fmt.seconds(p.simulatedSeconds())).orElse(Fmt.NONE)));
-        rows.add(List.of("time on a rail at switch-on", r.powerOn().map(p -> p.pinnedSeconds().get(st.label()))
-                .map(Fmt::seconds).orElse("0 s")));
+        rows.add(List.of("time on a rail at switch-on", r.powerOn().map(p -> p.pinnedSeconds().containsKey(st.label())
+                ? Fmt.seconds(p.pinnedSeconds().get(st.label())) : "0 s").orElse(Fmt.NONE)));
         rows.add(List.of("leakage drift (limit leakage)", Fmt.signedVolts(st.leakageDriftVolts())));
         rows.add(List.of("bias-current shift at + input", Fmt.signedVolts(st.biasCurrentShiftVolts())));
         rows.add(List.of("supply within the part's range", st.supplyInRange() ? "yes" : "NO"));

@@ -170,6 +170,11 @@ class ReviewDocumentsTest {
         assertEquals(expected, rows.size());
         int previous = -1;
         for (Element row : rows) {
+            Element link = elements(elements(row, "td").get(0), "a").get(0);
+            String target = link.getAttribute("href").substring(1);
+            Element section = byId(d, "section", target);
+            assertTrue(squash(section.getTextContent()).contains(squash(link.getTextContent())),
+                    "the design name leads to its section");
             String word = squash(elements(row, "td").get(3).getTextContent());
             int rank = Verdict.valueOf(word.toUpperCase(java.util.Locale.ROOT)).ordinal();
             assertTrue(rank >= previous, "worst first");
