@@ -11,6 +11,8 @@ import java.util.List;
 public final class Axis {
     /** Largest number of ticks an axis ever proposes, whatever is asked. */
     public static final int MAX_TICKS = 50;
+    /** Most coarser steps tried when the first step gives too many ticks (each try at least doubles it). */
+    static final int MAX_STEP_SEARCH = 64;
 
     private final double min;
     private final double max;
@@ -84,10 +86,12 @@ public final class Axis {
             return out;
         }
         double step = niceStep((max - min) / limit);
-        while ((Math.floor(max / step) - Math.ceil(min / step) + 1) > limit) {
+        for (int tries = 0; tries < MAX_STEP_SEARCH
+                && (Math.floor(max / step) - Math.ceil(min / step) + 1) > limit; tries++) {
             step = niceStep(step * 1.01);
         }
-        for (long k = (long) Math.ceil(min / step - 1e-9); k * step <= max + step * 1e-9; k++) {
+        for (long k = (long) Math.ceil(min / step - 1e-9); k * step <= max + step * 1e-9 && out.size() < MAX_TICKS;
+             k++) {
             double v = k * step;
             out.add(Math.abs(v) < step * 1e-9 ? 0.0 : v);
         }

@@ -29,6 +29,9 @@ final class ReviewDocument {
     static final DateTimeFormatter WHEN = DateTimeFormatter.ofPattern("yyyy-MM-dd HH:mm 'UTC'", Locale.ROOT)
             .withZone(ZoneOffset.UTC);
 
+    /** Most op-amps drawn side by side in one ladder picture (more would shrink the text on a page). */
+    static final int LADDERS_PER_PICTURE = 3;
+
     private ReviewDocument() {}
 
     /** Element id of design {@code i}'s section (counted from 1). */
@@ -87,10 +90,15 @@ final class ReviewDocument {
         }
         if (!r.ladders().isEmpty()) {
             b.add(new Block.Heading(3, "Voltage ladder", id + "-ladder"));
-            b.add(new Block.Picture(id + "-ladder-picture",
-                    "Each op-amp from ground to the supply: where its output can go, where its inputs work, its rest"
-                            + " point and the nominal signal around it.",
-                    "voltage ladder of " + d.name(), ReportPictures.ladders(r.ladders(), r.findings())));
+            int groups = (r.ladders().size() + LADDERS_PER_PICTURE - 1) / LADDERS_PER_PICTURE;
+            for (int k = 0; k < groups; k++) {
+                List<halfrail.check.Ladder> some = r.ladders().subList(k * LADDERS_PER_PICTURE,
+                        Math.min(r.ladders().size(), (k + 1) * LADDERS_PER_PICTURE));
+                b.add(new Block.Picture(id + "-ladder-picture" + (k == 0 ? "" : "-" + (k + 1)),
+                        "Each op-amp from ground to the supply: where its output can go, where its inputs work, its"
+                                + " rest point and the nominal signal around it.",
+                        "voltage ladder of " + d.name(), ReportPictures.ladders(some, r.findings())));
+            }
         }
         Optional<PowerOnReport> p = r.powerOn().filter(x -> x.trace().isPresent());
         if (p.isPresent()) {
