@@ -15,7 +15,7 @@ import java.util.OptionalDouble;
  * @param rippleAtLoadVolts  supply ripple reaching the load, V peak (0 without ripple)
  * @param rippleGain         gain from the supply to the load at the ripple frequency, V/V
  * @param referenceNoiseVoltsRms thermal noise of the reference network at the load over the band, V rms (at 300 K)
- * @param responses          the gain from the source to each signal stage's output and to the load, for plots
+ * @param responses          the gain from the source to each signal stage's output, then to the load, for plots
  */
 public record ChainReport(double bandLowHz, double bandHighHz, double peakGain, double peakHz,
                           OptionalDouble lowerCornerHz, OptionalDouble upperCornerHz, double rippleAtLoadVolts,
@@ -32,8 +32,13 @@ public record ChainReport(double bandLowHz, double bandHighHz, double peakGain, 
                 referenceNoiseVoltsRms, List.of());
     }
 
-    /** The response curve with {@code label}, if the chain has one. */
+    /** The response curve at the output of the stage labelled {@code label}, if the chain has one. */
     public java.util.Optional<ResponseCurve> response(String label) {
-        return responses.stream().filter(r -> r.label().equals(label)).findFirst();
+        return responses.stream().filter(r -> !r.atLoad() && r.label().equals(label)).findFirst();
+    }
+
+    /** The response curve at the load, if the chain has one. */
+    public java.util.Optional<ResponseCurve> loadResponse() {
+        return responses.stream().filter(ResponseCurve::atLoad).findFirst();
     }
 }

@@ -247,22 +247,23 @@ public final class DesignAnalysis {
             double lo = design.source().bandLowHz() / PLOT_RANGE_FACTOR;
             double hi = design.source().bandHighHz() * PLOT_RANGE_FACTOR;
             int points = (int) Math.ceil(Math.log10(hi / lo) * ResponseCurve.POINTS_PER_DECADE) + 1;
-            Map<String, String> nodes = new LinkedHashMap<>();
+            List<ResponseCurve> curves = new ArrayList<>();
             for (StageNodes sn : nominal.opAmps()) {
                 if (sn.signal()) {
-                    nodes.put(sn.label(), sn.out());
+                    curves.add(curve(ac, sn.label(), sn.out(), false, lo, hi, points));
                 }
             }
-            nodes.put(PowerOnTrace.LOAD, nominal.loadNode());
-            List<ResponseCurve> curves = new ArrayList<>();
-            nodes.forEach((label, node) -> {
-                AcSweep sw = ac.sweep(nominal.signalSource(), node, lo, hi, points);
-                OptionalDouble corner = ac.lowerCornerHz(nominal.signalSource(), node,
-                        design.source().bandLowHz() / RESPONSE_RANGE_FACTOR,
-                        design.source().bandHighHz() * RESPONSE_RANGE_FACTOR);
-                curves.add(new ResponseCurve(label, node, sw.frequenciesHz(), sw.magnitudeDb(), corner));
-            });
+            curves.add(curve(ac, ResponseCurve.LOAD_LABEL, nominal.loadNode(), true, lo, hi, points));
             return curves;
+        }
+
+        private ResponseCurve curve(AcAnalysis ac, String label, String node, boolean atLoad, double lo, double hi,
+                                    int points) {
+            AcSweep sw = ac.sweep(nominal.signalSource(), node, lo, hi, points);
+            OptionalDouble corner = ac.lowerCornerHz(nominal.signalSource(), node,
+                    design.source().bandLowHz() / RESPONSE_RANGE_FACTOR,
+                    design.source().bandHighHz() * RESPONSE_RANGE_FACTOR);
+            return new ResponseCurve(label, node, atLoad, sw.frequenciesHz(), sw.magnitudeDb(), corner);
         }
 
         /**
@@ -360,20 +361,19 @@ public final class DesignAnalysis {
             for (int i = 0; i < n; i++) {
                 t[i] = i == n - 1 ? end : end * i / (n - 1);
             }
-            Map<String, String> nodes = new LinkedHashMap<>();
+            Map<String, double[]> outputs = new LinkedHashMap<>();
             for (StageNodes sn : nominal.opAmps()) {
-                nodes.put(sn.label(), sn.out());
+                outputs.put(sn.label(), sample(r, sn.out(), t));
             }
-            nodes.put(PowerOnTrace.LOAD, nominal.loadNode());
-            Map<String, double[]> volts = new LinkedHashMap<>();
-            nodes.forEach((label, node) -> {
-                double[] v = new double[n];
-                for (int i = 0; i < n; i++) {
-                    v[i] = r.voltageAt(node, t[i]);
-                }
-                volts.put(label, v);
-            });
-            return new PowerOnTrace(t, volts);
+            return new PowerOnTrace(t, outputs, sample(r, nominal.loadNode(), t));
+        }
+
+        private static double[] sample(PowerOnResult r, String node, double[] t) {
+            double[] v = new double[t.length];
+            for (int i = 0; i < t.length; i++) {
+                v[i] = r.voltageAt(node, t[i]);
+            }
+            return v;
         }
 
         private OperatingPoint solve(DesignCircuit dc, double[] guess) {

@@ -7,29 +7,33 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * A downsampled copy of the power-on transient for plotting: the voltages of the watched nodes
+ * A downsampled copy of the power-on transient for plotting: every op-amp's output and the load
  * at evenly spaced times. Immutable; arrays are copied in and out.
  *
- * @param timesSeconds  sample times from switch-on, s, rising
- * @param volts         per trace label (each op-amp's label, then {@link #LOAD}), its voltage at each time, V
+ * @param timesSeconds sample times from switch-on, s, rising
+ * @param outputVolts  per op-amp label (in stage order), its output at each time, V
+ * @param loadVolts    the load's voltage at each time, V
  */
-public record PowerOnTrace(double[] timesSeconds, Map<String, double[]> volts) {
-    /** Label of the load's trace. */
-    public static final String LOAD = "load";
+public record PowerOnTrace(double[] timesSeconds, Map<String, double[]> outputVolts, double[] loadVolts) {
     /** Largest number of samples kept per trace (plots need no more). */
     public static final int MAX_SAMPLES = 600;
 
     public PowerOnTrace {
         timesSeconds = timesSeconds.clone();
         Map<String, double[]> copy = new LinkedHashMap<>();
-        for (Map.Entry<String, double[]> e : volts.entrySet()) {
-            if (e.getValue().length != timesSeconds.length) {
-                throw new IllegalArgumentException("trace " + e.getKey() + " has " + e.getValue().length
-                        + " samples for " + timesSeconds.length + " times");
-            }
+        for (Map.Entry<String, double[]> e : outputVolts.entrySet()) {
+            requireLength(e.getKey(), e.getValue(), timesSeconds.length);
             copy.put(e.getKey(), e.getValue().clone());
         }
-        volts = Collections.unmodifiableMap(copy);
+        outputVolts = Collections.unmodifiableMap(copy);
+        requireLength("load", loadVolts, timesSeconds.length);
+        loadVolts = loadVolts.clone();
+    }
+
+    private static void requireLength(String what, double[] v, int n) {
+        if (v.length != n) {
+            throw new IllegalArgumentException(what + " has " + v.length + " samples for " + n + " times");
+        }
     }
 
     @Override
@@ -37,14 +41,19 @@ public record PowerOnTrace(double[] timesSeconds, Map<String, double[]> volts) {
         return timesSeconds.clone();
     }
 
-    /** The trace labels in drawing order. */
-    public List<String> labels() {
-        return List.copyOf(volts.keySet());
+    @Override
+    public double[] loadVolts() {
+        return loadVolts.clone();
     }
 
-    /** One trace's voltages, V (a copy). @throws IllegalArgumentException for an unknown label */
-    public double[] volts(String label) {
-        double[] v = volts.get(label);
+    /** The op-amp labels, in stage order. */
+    public List<String> labels() {
+        return List.copyOf(outputVolts.keySet());
+    }
+
+    /** One op-amp's output, V (a copy). @throws IllegalArgumentException for an unknown label */
+    public double[] outputVolts(String label) {
+        double[] v = outputVolts.get(label);
         if (v == null) {
             throw new IllegalArgumentException("no trace " + label);
         }
@@ -52,28 +61,28 @@ public record PowerOnTrace(double[] timesSeconds, Map<String, double[]> volts) {
     }
 
     @Override
-    public Map<String, double[]> volts() {
+    public Map<String, double[]> outputVolts() {
         Map<String, double[]> copy = new LinkedHashMap<>();
-        volts.forEach((k, v) -> copy.put(k, v.clone()));
+        outputVolts.forEach((k, v) -> copy.put(k, v.clone()));
         return Collections.unmodifiableMap(copy);
     }
 
     @Override
     public boolean equals(Object o) {
         if (!(o instanceof PowerOnTrace t) || !Arrays.equals(timesSeconds, t.timesSeconds)
-                || !volts.keySet().equals(t.volts.keySet())) {
+                || !Arrays.equals(loadVolts, t.loadVolts) || !outputVolts.keySet().equals(t.outputVolts.keySet())) {
             return false;
         }
-        return volts.entrySet().stream().allMatch(e -> Arrays.equals(e.getValue(), t.volts.get(e.getKey())));
+        return outputVolts.entrySet().stream().allMatch(e -> Arrays.equals(e.getValue(), t.outputVolts.get(e.getKey())));
     }
 
     @Override
     public int hashCode() {
-        return Arrays.hashCode(timesSeconds) * 31 + volts.keySet().hashCode();
+        return (Arrays.hashCode(timesSeconds) * 31 + Arrays.hashCode(loadVolts)) * 31 + outputVolts.keySet().hashCode();
     }
 
     @Override
     public String toString() {
-        return "PowerOnTrace[" + timesSeconds.length + " samples of " + volts.keySet() + "]";
+        return "PowerOnTrace[" + timesSeconds.length + " samples of " + outputVolts.keySet() + " and the load]";
     }
 }

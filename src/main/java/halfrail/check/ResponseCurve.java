@@ -7,14 +7,17 @@ import java.util.OptionalDouble;
  * The small-signal gain from the source to one node over a logarithmic frequency sweep, at the
  * nominal operating point, for plotting. Immutable; arrays are copied in and out.
  *
- * @param label          what the curve shows (a stage's label, or {@link PowerOnTrace#LOAD})
+ * @param label          what the curve shows: a stage's label, or {@link #LOAD_LABEL} for the load
  * @param node           the circuit node it was taken at
+ * @param atLoad         whether it was taken at the load (rather than at a stage's output)
  * @param frequenciesHz  sweep frequencies, Hz, rising
  * @param gainDb         gain from the source at each frequency, dB (20·log10 of V/V)
  * @param lowerCornerHz  the lower −3 dB point of this curve, Hz, when it has one in the searched range
  */
-public record ResponseCurve(String label, String node, double[] frequenciesHz, double[] gainDb,
+public record ResponseCurve(String label, String node, boolean atLoad, double[] frequenciesHz, double[] gainDb,
                             OptionalDouble lowerCornerHz) {
+    /** Label of the load's curve. */
+    public static final String LOAD_LABEL = "load";
     /** Sweep points per decade. */
     public static final int POINTS_PER_DECADE = 20;
 
@@ -38,7 +41,7 @@ public record ResponseCurve(String label, String node, double[] frequenciesHz, d
 
     @Override
     public boolean equals(Object o) {
-        return o instanceof ResponseCurve c && label.equals(c.label) && node.equals(c.node)
+        return o instanceof ResponseCurve c && label.equals(c.label) && node.equals(c.node) && atLoad == c.atLoad
                 && Arrays.equals(frequenciesHz, c.frequenciesHz) && Arrays.equals(gainDb, c.gainDb)
                 && lowerCornerHz.equals(c.lowerCornerHz);
     }

@@ -405,10 +405,16 @@ public final class ReportPictures {
         if (p.settleSeconds().isPresent()) {
             shown = Math.min(end, Math.max(1.6 * p.settleSeconds().getAsDouble(), end / 20));
         }
+        List<String> labels = tr.labels();
+        List<Series> series = new ArrayList<>();
+        for (int i = 0; i < labels.size(); i++) {
+            series.add(new Series(labels.get(i), labels.get(i) + " output", tr.outputVolts(labels.get(i)), false, i));
+        }
+        series.add(new Series("", "load", tr.loadVolts(), true, labels.size()));
         double vmax = supplyVolts;
         double vmin = 0;
-        for (String label : tr.labels()) {
-            for (double v : tr.volts(label)) {
+        for (Series se : series) {
+            for (double v : se.values()) {
                 vmax = Math.max(vmax, v);
                 vmin = Math.min(vmin, v);
             }
@@ -423,7 +429,7 @@ public final class ReportPictures {
         g.drawString("Power-on: from switch-on, every capacitor empty", f.left, 22);
 
         // settle band around the load's final value
-        double[] load = tr.volts(PowerOnTrace.LOAD);
+        double[] load = tr.loadVolts();
         double fin = load[load.length - 1];
         g.setColor(Palette.BAND);
         g.fill(new Rectangle2D.Double(f.left, y.toPixel(fin + p.bandVolts()), f.right - f.left,
@@ -437,10 +443,8 @@ public final class ReportPictures {
         g.setFont(SMALL);
         g.drawString("supply " + Fmt.volts(supplyVolts), (float) f.left + 6, (float) ys - 4);
 
-        List<String> labels = tr.labels();
-        for (int i : loadFirst(labels)) {
-            String label = labels.get(i);
-            double[] v = tr.volts(label);
+        for (Series se : loadFirst(series)) {
+            double[] v = se.values();
             Path2D path = new Path2D.Double();
             boolean started = false;
             for (int k = 0; k < t.length; k++) {
@@ -456,9 +460,7 @@ public final class ReportPictures {
                     path.lineTo(px, py);
                 }
             }
-            boolean isLoad = label.equals(PowerOnTrace.LOAD);
-            g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(traceStroke(i, isLoad));
+            se.style(g);
             g.draw(path);
         }
         if (p.settleSeconds().isPresent()) {
@@ -481,16 +483,13 @@ public final class ReportPictures {
         // key
         g.setFont(PLAIN);
         int ky = f.top + 10;
-        for (int i = 0; i < labels.size(); i++) {
-            String label = labels.get(i);
-            boolean isLoad = label.equals(PowerOnTrace.LOAD);
-            g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(traceStroke(i, isLoad));
+        for (Series se : series) {
+            se.style(g);
             g.draw(new Line2D.Double(f.right + 14, ky - 4, f.right + 36, ky - 4));
             g.setColor(Palette.INK);
-            g.drawString(fit(g, isLoad ? "load" : label + " output", 140), f.right + 42, ky);
+            g.drawString(fit(g, se.name(), 140), f.right + 42, ky);
             ky += 17;
-            Double pinned = p.pinnedSeconds().get(label);
+            Double pinned = se.load() ? null : p.pinnedSeconds().get(se.label());
             if (pinned != null && pinned > 0) {
                 g.setFont(SMALL);
                 g.setColor(Palette.FAINT);
@@ -559,8 +558,13 @@ public final class ReportPictures {
         Shape clip = g.getClip();
         g.setClip(new Rectangle2D.Double(f.left, f.top, f.right - f.left, f.bottom - f.top));
         List<ResponseCurve> curves = c.responses();
-        for (int i : loadFirst(curves.stream().map(ResponseCurve::label).toList())) {
+        List<Series> series = new ArrayList<>();
+        for (int i = 0; i < curves.size(); i++) {
             ResponseCurve r = curves.get(i);
+            series.add(new Series(r.label(), r.atLoad() ? "load" : r.label() + " output", r.gainDb(), r.atLoad(), i));
+        }
+        for (Series se : loadFirst(series)) {
+            ResponseCurve r = curves.get(se.index());
             double[] hz = r.frequenciesHz();
             double[] db = r.gainDb();
             Path2D path = new Path2D.Double();
@@ -576,13 +580,11 @@ public final class ReportPictures {
                     path.lineTo(px, py);
                 }
             }
-            boolean isLoad = r.label().equals(PowerOnTrace.LOAD);
-            g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(traceStroke(i, isLoad));
+            se.style(g);
             g.draw(path);
         }
         g.setClip(clip);
-        Optional<ResponseCurve> load = c.response(PowerOnTrace.LOAD);
+        Optional<ResponseCurve> load = c.loadResponse();
         if (load.isPresent() && load.get().lowerCornerHz().isPresent()) {
             double fc = load.get().lowerCornerHz().getAsDouble();
             double peakLoad = 20 * Math.log10(c.peakGain());
@@ -596,14 +598,12 @@ public final class ReportPictures {
         }
         g.setFont(PLAIN);
         int ky = f.top + 10;
-        for (int i = 0; i < curves.size(); i++) {
-            ResponseCurve r = curves.get(i);
-            boolean isLoad = r.label().equals(PowerOnTrace.LOAD);
-            g.setColor(isLoad ? Palette.LOAD : Palette.trace(i));
-            g.setStroke(traceStroke(i, isLoad));
+        for (Series se : series) {
+            ResponseCurve r = curves.get(se.index());
+            se.style(g);
             g.draw(new Line2D.Double(f.right + 14, ky - 4, f.right + 36, ky - 4));
             g.setColor(Palette.INK);
-            g.drawString(fit(g, isLoad ? "load" : r.label() + " output", 140), f.right + 42, ky);
+            g.drawString(fit(g, se.name(), 140), f.right + 42, ky);
             ky += 17;
             if (r.lowerCornerHz().isPresent()) {
                 g.setFont(SMALL);
@@ -635,14 +635,30 @@ public final class ReportPictures {
         return new BasicStroke(2f, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
     }
 
-    /** Indexes of {@code labels} with the load's first, so the stages draw over it. */
-    private static List<Integer> loadFirst(List<String> labels) {
-        List<Integer> order = new ArrayList<>();
-        for (int i = 0; i < labels.size(); i++) {
-            if (labels.get(i).equals(PowerOnTrace.LOAD)) {
-                order.add(0, i);
+    /**
+     * One plotted line.
+     *
+     * @param label  the op-amp label it belongs to (empty for the load)
+     * @param name   its name in the key
+     * @param values its values (volts or dB)
+     * @param load   whether it is the load's
+     * @param index  its place among the plot's lines (picks colour and dash)
+     */
+    private record Series(String label, String name, double[] values, boolean load, int index) {
+        void style(Graphics2D g) {
+            g.setColor(load ? Palette.LOAD : Palette.trace(index));
+            g.setStroke(traceStroke(index, load));
+        }
+    }
+
+    /** {@code series} with the load's first, so the stages draw over it. */
+    private static List<Series> loadFirst(List<Series> series) {
+        List<Series> order = new ArrayList<>();
+        for (Series se : series) {
+            if (se.load()) {
+                order.add(0, se);
             } else {
-                order.add(i);
+                order.add(se);
             }
         }
         return order;
