@@ -51,10 +51,20 @@ class ReportCommandTest {
     }
 
     @Test
-    void aNetlistIsBadInputNamingTheCheckCommand(@TempDir Path dir) {
-        CheckCommandTest.Run r = run("report", "samples/nine-volt-boost.cir", "-o", dir.resolve("x").toString());
+    void aNetlistGetsTheCircuitLevelReviewAndTheExitCodeCheckGives(@TempDir Path dir) throws IOException {
+        for (String file : new String[] {"samples/nine-volt-boost.cir", "samples/faulty-review.cir"}) {
+            CheckCommandTest.Run r = run("report", file, "-o", dir.resolve("net").toString());
+            assertEquals(run("check", file).code(), r.code(), file + ": " + r.err());
+            assertTrue(Files.readString(dir.resolve("net.html")).contains("DC operating point"), file);
+        }
+    }
+
+    @Test
+    void anUnreadableNetlistIsBadInputAndNothingIsWritten(@TempDir Path dir) throws IOException {
+        Path bad = Files.writeString(dir.resolve("bad.cir"), "* title\nR1 a\n.end\n");
+        CheckCommandTest.Run r = run("report", bad.toString(), "-o", dir.resolve("x").toString());
         assertEquals(ExitCodes.BAD_INPUT, r.code());
-        assertTrue(r.err().contains("nine-volt-boost.cir") && r.err().contains("check"), r.err());
+        assertTrue(r.err().contains("bad.cir"), r.err());
         assertFalse(Files.exists(dir.resolve("x.html")), "nothing to report, nothing written");
     }
 

@@ -107,8 +107,11 @@ public final class HtmlReport {
     }
 
     static String title(Review review) {
-        return review.entries().size() == 1 ? ReviewDocument.TITLE + ": " + review.entries().get(0).report().design().name()
-                : ReviewDocument.TITLE + ": " + review.entries().size() + " designs";
+        if (review.size() == 1) {
+            return ReviewDocument.TITLE + ": " + (review.entries().isEmpty() ? review.netlists().get(0).name()
+                    : review.entries().get(0).report().design().name());
+        }
+        return ReviewDocument.TITLE + ": " + ReviewDocument.count(review);
     }
 
     private static void table(StringBuilder h, Block.Table t) {

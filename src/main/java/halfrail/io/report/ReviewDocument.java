@@ -43,8 +43,7 @@ final class ReviewDocument {
         List<Block> b = new ArrayList<>();
         b.add(new Block.Heading(1, TITLE, "top"));
         b.add(new Block.Para("halfrail " + review.toolVersion() + " \u00B7 made " + WHEN.format(review.generated())
-                + " \u00B7 " + review.entries().size() + (review.entries().size() == 1 ? " design" : " designs")
-                + " \u00B7 overall verdict: " + review.worst().word(), Block.Para.Kind.META));
+                + " \u00B7 " + count(review) + " \u00B7 overall verdict: " + review.worst().word(), Block.Para.Kind.META));
         if (review.hasSummary()) {
             List<List<String>> rows = new ArrayList<>();
             List<Verdict> verdicts = new ArrayList<>();
@@ -62,7 +61,62 @@ final class ReviewDocument {
         for (int i = 0; i < review.entries().size(); i++) {
             design(b, review.entries().get(i), designId(i));
         }
+        for (int k = 0; k < review.netlists().size(); k++) {
+            netlist(b, review.netlists().get(k), designId(review.entries().size() + k));
+        }
         return b;
+    }
+
+    /** "3 designs", "1 design, 2 netlists". */
+    static String count(Review review) {
+        int d = review.entries().size();
+        int n = review.netlists().size();
+        String designs = d + (d == 1 ? " design" : " designs");
+        String netlists = n + (n == 1 ? " netlist" : " netlists");
+        return n == 0 ? designs : d == 0 ? netlists : designs + ", " + netlists;
+    }
+
+    private static void netlist(List<Block> b, NetlistEntry n, String id) {
+        halfrail.check.CircuitReport r = n.report();
+        b.add(new Block.Heading(2, n.name(), id));
+        b.add(new Block.Para("netlist " + n.source() + " \u00B7 verdict: " + Verdict.of(r.findings()).word()
+                + " \u00B7 circuit-level checks only (no design model: no ladders, supply or stage tables)",
+                Block.Para.Kind.META));
+        List<List<String>> nodes = new ArrayList<>();
+        r.nodeVolts().forEach((node, v) -> nodes.add(List.of(node + (n.outputNode().filter(node::equals).isPresent()
+                ? " (output)" : ""), v == null ? "floating (no DC path)" : Fmt.volts(v))));
+        b.add(new Block.Table(id + "-nodes", "DC operating point", List.of("Node", "Voltage"), nodes));
+        for (int k = 0; k < r.opAmps().size(); k++) {
+            halfrail.solve.OpAmpState o = r.opAmps().get(k);
+            List<List<String>> rows = new ArrayList<>();
+            rows.add(List.of("quiescent point (output at rest)", Fmt.volts(o.outputVolts())
+                    + (o.saturated() ? " \u2014 on a rail" : "")));
+            rows.add(List.of("inputs at rest", "in+ " + Fmt.volts(o.inPlusVolts()) + ", in\u2212 " + Fmt.volts(o.inMinusVolts())
+                    + (o.commonModeOk() ? " (in range)" : " (OUT OF RANGE)")));
+            rows.add(List.of("swing window", Fmt.volts(o.swingLowVolts()) + " \u2013 " + Fmt.volts(o.swingHighVolts())));
+            rows.add(List.of("common-mode range", Fmt.volts(o.commonModeLowVolts()) + " \u2013 "
+                    + Fmt.volts(o.commonModeHighVolts())));
+            b.add(new Block.Table(id + "-opamp-" + (k + 1), "Op-amp " + o.name(), List.of("Quantity", "Value"), rows));
+        }
+        List<List<String>> response = new ArrayList<>();
+        response.add(List.of("output node", n.outputNode().orElse(Fmt.NONE)));
+        response.add(List.of("lower corner", r.lowerCornerHz().isPresent() ? Fmt.hertz(r.lowerCornerHz().getAsDouble())
+                : Fmt.NONE));
+        response.add(List.of("upper corner", r.upperCornerHz().isPresent() ? Fmt.hertz(r.upperCornerHz().getAsDouble())
+                : Fmt.NONE));
+        response.add(List.of("settle-up time", r.settleSeconds().isPresent()
+                ? Fmt.seconds(r.settleSeconds().getAsDouble()) : "not settled or not run"));
+        b.add(Block.Table.pairs(id + "-response", "Response and power-on", response));
+        for (String note : n.notes()) {
+            b.add(new Block.Para("reader note: " + note, Block.Para.Kind.META));
+        }
+        b.add(new Block.Heading(3, "Findings", id + "-findings"));
+        if (r.findings().isEmpty()) {
+            b.add(new Block.Para("No findings.", Block.Para.Kind.TEXT));
+        }
+        for (Finding f : r.findings()) {
+            b.add(new Block.FindingItem(f));
+        }
     }
 
     private static void design(List<Block> b, ReviewEntry e, String id) {
@@ -199,7 +253,7 @@ final class ReviewDocument {
         rows.add(List.of("role", st.signal() ? "signal stage" : "reference buffer"));
         rows.add(List.of("quiescent point (output at rest)", Fmt.volts(n.quiescentVolts()) + " at "
                 + Fmt.volts(n.supplyVolts()) + (n.saturated() ? " \u2014 on a rail" : "")));
-        rows.add(List.of("inputs at rest", "+ " + Fmt.volts(st.inPlusVolts()) + ", \u2212 " + Fmt.volts(st.inMinusVolts())
+        rows.add(List.of("inputs at rest", "in+ " + Fmt.volts(st.inPlusVolts()) + ", in\u2212 " + Fmt.volts(st.inMinusVolts())
                 + (st.commonModeOkAtRest() ? " (in range)" : " (OUT OF RANGE)")));
         rows.add(List.of("swing window", Fmt.volts(n.swingLowVolts()) + " \u2013 " + Fmt.volts(n.swingHighVolts())));
         if (st.signal()) {

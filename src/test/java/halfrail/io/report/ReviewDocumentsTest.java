@@ -45,7 +45,7 @@ class ReviewDocumentsTest {
 
     @BeforeAll
     static void render() throws Exception {
-        review = new Review(SampleReports.entries(), VERSION, WHEN);
+        review = new Review(SampleReports.entries(), SampleReports.netlists(), VERSION, WHEN);
         html = HtmlReport.render(review);
         pdf = PdfReport.render(review);
         Files.writeString(SampleReports.outputDir().resolve("samples-review.html"), html, StandardCharsets.UTF_8);
@@ -167,6 +167,12 @@ class ReviewDocumentsTest {
                     || e.report().stages().isEmpty();
             expected += whole ? 1 : 0;
         }
+        for (NetlistEntry n : review.netlists()) {
+            expected += n.report().opAmps().size();
+            boolean whole = n.report().findings().stream().anyMatch(f -> f.opAmp().isEmpty())
+                    || n.report().opAmps().isEmpty();
+            expected += whole ? 1 : 0;
+        }
         assertEquals(expected, rows.size());
         int previous = -1;
         for (Element row : rows) {
@@ -185,10 +191,31 @@ class ReviewDocumentsTest {
     }
 
     @Test
+    void everyNetlistHasItsOperatingPointItsOpAmpsAndItsFindings() throws Exception {
+        Document d = parse(html);
+        assertFalse(review.netlists().isEmpty(), "the samples hold netlists");
+        for (int k = 0; k < review.netlists().size(); k++) {
+            NetlistEntry n = review.netlists().get(k);
+            Element section = byId(d, "section", ReviewDocument.designId(review.entries().size() + k));
+            String text = squash(section.getTextContent());
+            assertTrue(text.contains(n.name()) && text.contains("DC operating point"), n.source());
+            for (halfrail.solve.OpAmpState o : n.report().opAmps()) {
+                assertTrue(text.contains("Op-amp " + o.name()) && text.contains(Fmt.volts(o.outputVolts())), o.name());
+            }
+            List<Element> items = elements(section, "li").stream()
+                    .filter(e -> !e.getAttribute(HtmlReport.CODE_ATTRIBUTE).isEmpty()).toList();
+            assertEquals(n.report().findings().size(), items.size(), n.source());
+            for (int i = 0; i < items.size(); i++) {
+                assertTrue(squash(items.get(i).getTextContent()).contains(squash(n.report().findings().get(i).message())));
+            }
+        }
+    }
+
+    @Test
     void thePdfOpensWithTheSummaryFirstAndEachDesignOnItsOwnPages() throws Exception {
         try (PDDocument doc = Loader.loadPDF(pdf)) {
             int designs = review.entries().size();
-            assertTrue(doc.getNumberOfPages() >= designs + 1, "a summary page and at least a page per design");
+            assertTrue(doc.getNumberOfPages() >= review.size() + 1, "a summary page and at least a page per file");
             PDFTextStripper strip = new PDFTextStripper();
             strip.setStartPage(1);
             strip.setEndPage(1);
@@ -208,6 +235,19 @@ class ReviewDocumentsTest {
                 assertTrue(start > previous, name + " starts a page after the previous design's");
                 previous = start;
             }
+            for (NetlistEntry n : review.netlists()) {
+                String name = squash(PdfReport.printable(n.name()));
+                int start = -1;
+                for (int p = previous + 1; p <= doc.getNumberOfPages() && start < 0; p++) {
+                    strip.setStartPage(p);
+                    strip.setEndPage(p);
+                    if (squash(strip.getText(doc)).startsWith(name)) {
+                        start = p;
+                    }
+                }
+                assertTrue(start > previous, name + " starts a page after the previous file's");
+                previous = start;
+            }
             assertTrue(first.contains("page 1 of " + doc.getNumberOfPages()), "page footer");
         }
     }
@@ -224,6 +264,11 @@ class ReviewDocumentsTest {
                 for (Finding f : e.report().findings()) {
                     assertTrue(text.contains(squash(PdfReport.printable(f.message()))), f.code() + ": " + f.message());
                     assertTrue(text.contains(squash(PdfReport.printable(f.suggestion()))), f.code() + " suggestion");
+                }
+            }
+            for (NetlistEntry n : review.netlists()) {
+                for (Finding f : n.report().findings()) {
+                    assertTrue(text.contains(squash(PdfReport.printable(f.message()))), f.code() + ": " + f.message());
                 }
             }
             PDFRenderer renderer = new PDFRenderer(doc);
