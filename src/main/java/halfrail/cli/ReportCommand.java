@@ -48,6 +48,9 @@ import java.util.concurrent.Callable;
         exitCodeList = {"0:no failing finding", "1:a failing finding in some file",
                 "2:bad input (unreadable file, parse error, cannot write OUT)", "3:internal error"})
 public final class ReportCommand implements Callable<Integer> {
+    /** Held so that its level, once set, is not lost when the logger would otherwise be collected. */
+    private static final java.util.logging.Logger PDF_LOG = java.util.logging.Logger.getLogger("org.apache.pdfbox");
+
     @Spec
     CommandSpec spec;
 
@@ -63,6 +66,9 @@ public final class ReportCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        // The PDF library logs font substitutions as warnings; the command's error stream carries
+        // one line per bad input and nothing else.
+        PDF_LOG.setLevel(java.util.logging.Level.SEVERE);
         if (System.getProperty("java.awt.headless") == null) {
             System.setProperty("java.awt.headless", "true"); // the pictures are drawn off-screen
         }

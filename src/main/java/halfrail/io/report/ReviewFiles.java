@@ -61,6 +61,10 @@ public final class ReviewFiles {
             Files.createDirectories(dir);
             tmp = Files.createTempFile(dir, "." + target.getFileName(), ".tmp");
             Files.write(tmp, bytes);
+            if (Files.getFileStore(tmp).supportsFileAttributeView(java.nio.file.attribute.PosixFileAttributeView.class)) {
+                // A temporary file is private to its owner; a report is for passing on.
+                Files.setPosixFilePermissions(tmp, java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
+            }
             try {
                 Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
             } catch (java.nio.file.AtomicMoveNotSupportedException e) {
