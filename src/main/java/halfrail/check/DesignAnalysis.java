@@ -3,7 +3,6 @@ package halfrail.check;
 import halfrail.circuit.Capacitor;
 import halfrail.circuit.Circuit;
 import halfrail.circuit.CurrentSource;
-import halfrail.circuit.Element;
 import halfrail.circuit.OpAmp;
 import halfrail.circuit.OpAmpParams;
 import halfrail.circuit.Resistor;
@@ -30,7 +29,6 @@ import halfrail.solve.PowerOnResult;
 import halfrail.solve.PowerOnTransient;
 
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -286,7 +284,8 @@ public final class DesignAnalysis {
                 ripple = rippleGain * supply.rippleVoltsPeak();
             }
             return new ChainReport(bandLow, bandHigh, pb.peakMagnitude(), pb.peakHz(), pb.lowerCornerHz(),
-                    pb.upperCornerHz(), ripple, rippleGain, referenceNoise(), responses(ac));
+                    pb.upperCornerHz(), ripple, rippleGain,
+                    ReferenceNoise.voltsRms(nominal.circuit(), nominal.loadNode(), bandLow, bandHigh), responses(ac));
         }
 
         /** The gain from the source to each signal stage's output and to the load, for plots. */
@@ -311,54 +310,6 @@ public final class DesignAnalysis {
                     design.source().bandLowHz() / RESPONSE_RANGE_FACTOR,
                     design.source().bandHighHz() * RESPONSE_RANGE_FACTOR);
             return new ResponseCurve(label, node, atLoad, sw.frequenciesHz(), sw.magnitudeDb(), corner);
-        }
-
-        /**
-         * Thermal noise of the reference network's resistors at the load, integrated over the band:
-         * each resistor R contributes a noise current √(4kT/R) across itself (Johnson 1928, Nyquist 1928),
-         * carried to the load by the circuit's own transimpedance.
-         */
-        private double referenceNoise() {
-            Circuit.Builder b = nominal.circuit().toBuilder();
-            List<String> noiseSources = new ArrayList<>();
-            Map<String, Double> conductance = new HashMap<>();
-            for (Element e : nominal.circuit().elements()) {
-                if (e instanceof Resistor r && isReferenceResistor(r.name())) {
-                    String name = "INOISE_" + r.name();
-                    b.add(new CurrentSource(name, r.a(), r.b(), 0));
-                    noiseSources.add(name);
-                    conductance.put(name, 1 / r.ohms());
-                }
-            }
-            if (noiseSources.isEmpty()) {
-                return 0;
-            }
-            Circuit noisy = b.build();
-            AcAnalysis ac = AcAnalysis.of(noisy);
-            double lo = design.source().bandLowHz();
-            double hi = design.source().bandHighHz();
-            int points = Math.max(2, (int) Math.ceil(Math.log10(hi / lo) * NOISE_POINTS_PER_DECADE) + 1);
-            double total = 0;
-            double prevF = 0;
-            double prevDensity = 0;
-            for (int k = 0; k < points; k++) {
-                double f = lo * Math.pow(hi / lo, k / (double) (points - 1));
-                double density = 0; // V²/Hz
-                for (String s : noiseSources) {
-                    double z = ac.response(s, nominal.loadNode(), f).magnitude();
-                    density += 4 * BOLTZMANN * NOISE_TEMPERATURE_KELVIN * conductance.get(s) * z * z;
-                }
-                if (k > 0) {
-                    total += 0.5 * (density + prevDensity) * (f - prevF);
-                }
-                prevF = f;
-                prevDensity = density;
-            }
-            return Math.sqrt(total);
-        }
-
-        private static boolean isReferenceResistor(String name) {
-            return name.equals("RA") || name.equals("RB") || name.equals("RISO") || name.startsWith("RBIAS");
         }
 
         private BatteryReport battery(OperatingPoint op) {
