@@ -120,7 +120,7 @@ public final class DcSolver {
     /** Row used for each op-amp's state in the current iteration: one of the ROW_ constants. */
     private final int[] rowKind;
     private final double[] limiter = new double[4];
-    private final LinearSolver lu = new DenseLu();
+    private final LinearSolver lu;
     private int iterations;
     /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
     private double gainScale = 1;
@@ -138,6 +138,7 @@ public final class DcSolver {
         this.dx = new double[n];
         this.rowMagnitude = new double[n];
         this.rowKind = new int[opAmpCount];
+        this.lu = LinearSolvers.forSize(n);
     }
 
     /** Solve {@code circuit}'s operating point. */
