@@ -102,6 +102,12 @@ public final class DcSolver {
      * dominant-pole dynamics dx/dt = ωp·(u − x) any disturbance grows.
      */
     public static final double UNSTABLE_LOOP_GAIN = 1;
+    /**
+     * Smallest |z_s| (dimensionless, the diagonal of G⁻¹ at an op-amp state) for which the loop
+     * gain 1 − 1/z_s is taken from the shared factorisation; below it the opened matrix is
+     * factored directly (loop gains beyond about 1e7 in magnitude).
+     */
+    static final double LOOP_GAIN_DIRECT_BELOW = 1e-7;
 
     private static final int ROW_LIMITED = 0;
     private static final int ROW_UNLIMITED = 1;
@@ -122,11 +128,20 @@ public final class DcSolver {
     private final double[] limiter = new double[4];
     private final LinearSolver lu;
     private int iterations;
+    /** Whether {@link #lu} holds the factors of the true Jacobian at the point preferStable examines. */
+    private boolean jacobianAtX;
+    /** Whether that Jacobian turned out singular (then each loop gain is found directly). */
+    private boolean jacobianSingular;
     /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
     private double gainScale = 1;
     private boolean linearStartSingular;
 
     public DcSolver(MnaSystem system) {
+        this(system, LinearSolvers.forSize(system.size()));
+    }
+
+    /** As {@link #DcSolver(MnaSystem)} with a given linear solver (tests compare the solvers). */
+    DcSolver(MnaSystem system, LinearSolver solver) {
         this.system = system;
         this.n = system.size();
         this.nodeCount = system.nodeCount();
@@ -138,7 +153,7 @@ public final class DcSolver {
         this.dx = new double[n];
         this.rowMagnitude = new double[n];
         this.rowKind = new int[opAmpCount];
-        this.lu = LinearSolvers.forSize(n);
+        this.lu = solver;
     }
 
     /** Solve {@code circuit}'s operating point. */
@@ -637,6 +652,7 @@ public final class DcSolver {
      */
     private void preferStable(double[] x) {
         int[] mode = new int[opAmpCount];
+        jacobianAtX = false;
         for (int j = 0; j < opAmpCount; j++) {
             system.opAmpLimiter(j, x, 1, 1, limiter);
             double u = limiter[0];
@@ -648,6 +664,7 @@ public final class DcSolver {
             }
             int st = system.opAmpStateUnknown(j);
             boolean upperFirst = x[st] >= 0.5 * (lo + hi);
+            jacobianAtX = false; // the solves below factor other matrices
             for (int attempt = 0; attempt < 2; attempt++) {
                 boolean high = upperFirst == (attempt == 0);
                 double[] trial = x.clone();
@@ -669,10 +686,36 @@ public final class DcSolver {
      * Loop gain of op-amp {@code j} at x: the change of its target u per volt of change of its
      * state, with the rest of the circuit linearised at x and the op-amp's own state row opened.
      * NaN when the opened circuit is singular.
+     *
+     * <p>Opening row s (replacing it by the unit row) is a rank-one change of the Jacobian G, so by
+     * the Sherman–Morrison formula the opened system's response to a unit state change is
+     * z / z_s with z = G⁻¹·e_s (Golub and Van Loan, Matrix Computations, §2.1.4): one
+     * factorisation of G serves every op-amp of the circuit. When G is singular or z_s is within
+     * {@link #LOOP_GAIN_DIRECT_BELOW} of zero (a loop gain near ±1/that, where the sign would be
+     * uncertain), the opened matrix is factored directly.
      */
     private double loopGain(int j, double[] x) {
-        system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
         int st = system.opAmpStateUnknown(j);
+        if (!jacobianAtX && !jacobianSingular) {
+            system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
+            try {
+                lu.factor(g, n);
+                jacobianAtX = true;
+            } catch (AnalysisException e) {
+                jacobianSingular = true;
+            }
+        }
+        if (jacobianAtX) {
+            Arrays.fill(dx, 0);
+            dx[st] = 1;
+            lu.solve(dx);
+            double zs = dx[st];
+            if (Math.abs(zs) >= LOOP_GAIN_DIRECT_BELOW && Double.isFinite(zs)) {
+                return system.opAmpTargetChange(j, dx) / zs;
+            }
+        }
+        jacobianAtX = false;
+        system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
         Arrays.fill(g[st], 0, n, 0);
         g[st][st] = 1;
         try {
@@ -692,6 +735,7 @@ public final class DcSolver {
     }
 
     private OperatingPoint result(double[] x, OperatingPoint.Strategy strategy) {
+        jacobianSingular = false;
         preferStable(x);
         Circuit c = system.circuit();
         system.evaluate(x, 0, Mode.DC, 1, 0, f, null, null, null);

@@ -227,6 +227,102 @@ public final class MnaSystem {
     }
 
     /**
+     * The positions G and C can ever fill, row by row (the union over both modes, every limiter
+     * region and the gmin shunts): what a sparse solver needs to assemble and factor without
+     * touching the empty part of the matrix.
+     */
+    static final class Pattern {
+        /** Start of each row's entries in {@link #columns}; length size + 1. */
+        final int[] rowStart;
+        /** Column of each entry, ascending within a row. */
+        final int[] columns;
+        final int size;
+
+        Pattern(int size, int[] rowStart, int[] columns) {
+            this.size = size;
+            this.rowStart = rowStart;
+            this.columns = columns;
+        }
+
+        /** Number of entries. */
+        int entries() {
+            return columns.length;
+        }
+
+        /** Index of entry (row, col) in the value arrays. */
+        int slot(int row, int col) {
+            int lo = rowStart[row];
+            int hi = rowStart[row + 1] - 1;
+            while (lo <= hi) {
+                int mid = (lo + hi) >>> 1;
+                int v = columns[mid];
+                if (v < col) {
+                    lo = mid + 1;
+                } else if (v > col) {
+                    hi = mid - 1;
+                } else {
+                    return mid;
+                }
+            }
+            throw new IllegalStateException("entry (" + row + ", " + col + ") lies outside the circuit's pattern");
+        }
+    }
+
+    private volatile Pattern pattern;
+
+    /** The sparsity pattern of G and C (made once, on first use). */
+    Pattern pattern() {
+        Pattern p = pattern;
+        if (p == null) {
+            java.util.Set<Long> seen = new java.util.HashSet<>();
+            double[] x = new double[size];
+            double[] f = new double[size];
+            double[] q = new double[size];
+            for (Mode mode : Mode.values()) {
+                for (boolean limit : new boolean[] {true, false}) {
+                    Stamp s = new Stamp(x, f, null, q, null, limit, 1, null, null, null, seen, size);
+                    for (Device d : devices) {
+                        d.load(s, 0, mode, 1);
+                    }
+                }
+            }
+            for (int i = 0; i < size; i++) {
+                seen.add((long) i * size + i); // gmin on node rows; a diagonal slot everywhere
+            }
+            long[] keys = seen.stream().mapToLong(Long::longValue).sorted().toArray();
+            int[] rowStart = new int[size + 1];
+            int[] columns = new int[keys.length];
+            for (int k = 0; k < keys.length; k++) {
+                int row = (int) (keys[k] / size);
+                columns[k] = (int) (keys[k] % size);
+                rowStart[row + 1]++;
+            }
+            for (int i = 0; i < size; i++) {
+                rowStart[i + 1] += rowStart[i];
+            }
+            p = new Pattern(size, rowStart, columns);
+            pattern = p;
+        }
+        return p;
+    }
+
+    /**
+     * The real circuit's {@link Mode#DYNAMIC} equations at x and t, with G and C written as the
+     * values of {@link #pattern()} (cleared first) instead of dense matrices.
+     */
+    void evaluateSparse(double[] x, double t, double[] f, double[] gValues, double[] q, double[] cValues) {
+        Pattern p = pattern();
+        java.util.Arrays.fill(f, 0, size, 0);
+        java.util.Arrays.fill(q, 0, size, 0);
+        java.util.Arrays.fill(gValues, 0, p.entries(), 0);
+        java.util.Arrays.fill(cValues, 0, p.entries(), 0);
+        Stamp s = new Stamp(x, f, null, q, null, true, 1, p, gValues, cValues, null, size);
+        for (Device d : devices) {
+            d.load(s, t, Mode.DYNAMIC, 1);
+        }
+    }
+
+    /**
      * The right-hand side b of the small-signal system for a unit change of one source: for a
      * voltage source, +1 in its branch row; for a current source, the current injected at its
      * nodes. Multiply by the source's AC magnitude for the AC sweep.
@@ -372,8 +468,20 @@ public final class MnaSystem {
         final double[][] c;
         final boolean limit;
         final double gainScale;
+        /** Sparse targets: values of G and C in the order of {@link #pattern}; null when dense. */
+        final Pattern pattern;
+        final double[] gs;
+        final double[] cs;
+        /** When not null, the stamp only records the positions it would write (row·size + column). */
+        final java.util.Set<Long> record;
+        final int size;
 
         Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale) {
+            this(x, f, g, q, c, limit, gainScale, null, null, null, null, 0);
+        }
+
+        Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale,
+              Pattern pattern, double[] gs, double[] cs, java.util.Set<Long> record, int size) {
             this.limit = limit;
             this.gainScale = gainScale;
             this.x = x;
@@ -381,6 +489,21 @@ public final class MnaSystem {
             this.g = g;
             this.q = q;
             this.c = c;
+            this.pattern = pattern;
+            this.gs = gs;
+            this.cs = cs;
+            this.record = record;
+            this.size = size;
+        }
+
+        void c(int row, int col, double value) {
+            if (c != null) {
+                c[row][col] += value;
+            } else if (cs != null) {
+                cs[pattern.slot(row, col)] += value;
+            } else if (record != null) {
+                record.add((long) row * size + col);
+            }
         }
 
         double v(int i) {
@@ -394,8 +517,14 @@ public final class MnaSystem {
         }
 
         void g(int row, int col, double value) {
-            if (row >= 0 && col >= 0 && g != null) {
-                g[row][col] += value;
+            if (row >= 0 && col >= 0) {
+                if (g != null) {
+                    g[row][col] += value;
+                } else if (gs != null) {
+                    gs[pattern.slot(row, col)] += value;
+                } else if (record != null) {
+                    record.add((long) row * size + col);
+                }
             }
         }
 
@@ -421,17 +550,15 @@ public final class MnaSystem {
                     q[b] -= charge;
                 }
             }
-            if (c != null) {
-                if (a >= 0) {
-                    c[a][a] += cab;
-                }
-                if (b >= 0) {
-                    c[b][b] += cab;
-                }
-                if (a >= 0 && b >= 0) {
-                    c[a][b] -= cab;
-                    c[b][a] -= cab;
-                }
+            if (a >= 0) {
+                c(a, a, cab);
+            }
+            if (b >= 0) {
+                c(b, b, cab);
+            }
+            if (a >= 0 && b >= 0) {
+                c(a, b, -cab);
+                c(b, a, -cab);
             }
         }
     }
@@ -622,9 +749,7 @@ public final class MnaSystem {
                 if (s.q != null) {
                     s.q[st] += xs;
                 }
-                if (s.c != null) {
-                    s.c[st][st] += 1;
-                }
+                s.c(st, st, 1);
             }
         }
 

@@ -15,7 +15,10 @@ import java.util.Arrays;
  * the supply rail is eliminated last), rows by threshold partial pivoting: the diagonal of the
  * ordering is kept while its magnitude is at least {@link #PIVOT_THRESHOLD} times the largest
  * candidate, otherwise the largest is taken. The order is made once and made again only when an
- * entry appears outside every pattern seen so far.
+ * entry appears outside every pattern seen so far. Given a circuit's fixed pattern
+ * ({@link #factor(MnaSystem.Pattern, double[])}), later factorisations reuse the pivot order and
+ * the patterns of L and U and only redo the arithmetic, as long as every pivot stays within the
+ * threshold (the refactorisation of KLU, Davis and Palamadai Natarajan, ACM TOMS 37, 2010).
  *
  * <p>Rows are equilibrated first, exactly as in {@link DenseLu}, and the singularity test is the
  * same: a pivot at or below the threshold (relative to its row's largest entry), an empty row or
@@ -61,6 +64,11 @@ public final class SparseLu implements LinearSolver {
     private int stamp;
     private double[] y;
     private boolean factored;
+    /** The pattern whose column store and order are set up, for {@link #factor(MnaSystem.Pattern, double[])}. */
+    private MnaSystem.Pattern lastPattern;
+    private int[] toColumn;
+    /** Whether the factors' patterns and pivot order may serve a numeric {@link #refactor}. */
+    private boolean refactorReady;
 
     public SparseLu() {
         this(DEFAULT_TOO_SMALL);
@@ -82,12 +90,154 @@ public final class SparseLu implements LinearSolver {
         if (size != n) {
             allocate(size);
         }
+        lastPattern = null; // the column store is about to hold a dense matrix's entries
+        refactorReady = false;
         boolean grew = scatter(a);
         if (grew || order == null) {
             order = minimumDegree();
         }
         decompose();
         factored = true;
+    }
+
+    /**
+     * Factor a matrix given as the values of a circuit's pattern (row by row, as
+     * {@link MnaSystem#pattern()} orders them): no dense array is read, so the cost follows the
+     * entries, not their square. The order is made once per pattern.
+     *
+     * @throws AnalysisException SINGULAR as {@link #factor(double[][], int)}
+     */
+    void factor(MnaSystem.Pattern p, double[] values) {
+        factored = false;
+        if (p.size != n) {
+            allocate(p.size);
+            lastPattern = null;
+        }
+        int entries = p.entries();
+        if (p != lastPattern) {
+            if (ai.length < entries) {
+                ai = new int[entries];
+                ax = new double[entries];
+            }
+            Arrays.fill(ap, 0);
+            for (int k = 0; k < entries; k++) {
+                ap[p.columns[k] + 1]++;
+            }
+            for (int j = 0; j < n; j++) {
+                ap[j + 1] += ap[j];
+            }
+            toColumn = new int[entries];
+            int[] next = xi;
+            System.arraycopy(ap, 0, next, 0, n);
+            for (int i = 0; i < n; i++) {
+                int base = i * words;
+                for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
+                    int j = p.columns[k];
+                    int slot = next[j]++;
+                    ai[slot] = i;
+                    toColumn[k] = slot;
+                    pattern[base + (j >>> 6)] |= 1L << (j & 63);
+                }
+            }
+            order = minimumDegree();
+            lastPattern = p;
+            refactorReady = false;
+        }
+        for (int i = 0; i < n; i++) {
+            double max = 0;
+            for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
+                double m = Math.abs(values[k]);
+                if (!(m <= Double.MAX_VALUE)) {
+                    throw new AnalysisException(AnalysisException.Kind.SINGULAR,
+                            "the system matrix holds a non-finite entry in row " + i);
+                }
+                max = Math.max(max, m);
+            }
+            if (max == 0) {
+                throw new AnalysisException(AnalysisException.Kind.SINGULAR,
+                        "the system matrix has an empty row " + i);
+            }
+            double inv = 1.0 / max;
+            rowScale[i] = inv;
+            for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
+                ax[toColumn[k]] = values[k] * inv;
+            }
+        }
+        if (!(refactorReady && refactor())) {
+            decompose();
+            prepareRefactor();
+        }
+        factored = true;
+    }
+
+    /** Sort each column of U by row (the diagonal stays last) so that {@link #refactor} can run in order. */
+    private void prepareRefactor() {
+        for (int k = 0; k < n; k++) {
+            int start = up[k];
+            int end = up[k + 1] - 1; // the diagonal is last and the largest row index
+            for (int p = start + 1; p < end; p++) {
+                int row = ui[p];
+                double v = ux[p];
+                int q = p - 1;
+                while (q >= start && ui[q] > row) {
+                    ui[q + 1] = ui[q];
+                    ux[q + 1] = ux[q];
+                    q--;
+                }
+                ui[q + 1] = row;
+                ux[q + 1] = v;
+            }
+        }
+        refactorReady = true;
+    }
+
+    /**
+     * Numeric factorisation on the pivot order and the L and U patterns of the last full
+     * factorisation (same pattern of A, new values): no search. Fails, leaving the work array
+     * clean, when a pivot falls below {@link #PIVOT_THRESHOLD} of its column or the singularity
+     * threshold; the caller then factors afresh with pivoting.
+     */
+    private boolean refactor() {
+        double[] w = x;
+        for (int k = 0; k < n; k++) {
+            int col = order[k];
+            for (int p = ap[col]; p < ap[col + 1]; p++) {
+                w[pinv[ai[p]]] = ax[p];
+            }
+            int diag = up[k + 1] - 1;
+            for (int p = up[k]; p < diag; p++) {
+                int j = ui[p];
+                double ujk = w[j];
+                w[j] = 0;
+                ux[p] = ujk;
+                if (ujk != 0) {
+                    for (int q = lp[j] + 1, end = lp[j + 1]; q < end; q++) {
+                        w[li[q]] -= lx[q] * ujk;
+                    }
+                }
+            }
+            double pivot = w[k];
+            w[k] = 0;
+            double max = 0;
+            for (int q = lp[k] + 1, end = lp[k + 1]; q < end; q++) {
+                max = Math.max(max, Math.abs(w[li[q]]));
+            }
+            double m = Math.abs(pivot);
+            if (!(m > tooSmall) || m < PIVOT_THRESHOLD * max) {
+                for (int q = lp[k] + 1, end = lp[k + 1]; q < end; q++) {
+                    w[li[q]] = 0;
+                }
+                refactorReady = false;
+                return false;
+            }
+            ux[diag] = pivot;
+            for (int q = lp[k] + 1, end = lp[k + 1]; q < end; q++) {
+                int i = li[q];
+                lx[q] = w[i] / pivot;
+                w[i] = 0;
+            }
+        }
+        return true;
     }
 
     @Override
@@ -120,6 +270,7 @@ public final class SparseLu implements LinearSolver {
     }
 
     private void allocate(int size) {
+        refactorReady = false;
         n = size;
         rowScale = new double[size];
         ap = new int[size + 1];

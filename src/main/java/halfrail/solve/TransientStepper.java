@@ -111,6 +111,11 @@ final class TransientStepper {
     private final double[] divided = new double[HISTORY + 1];
     private final double[] tt = new double[HISTORY + 1];
     private final LinearSolver lu;
+    /** The solver when it is sparse: then G and C are assembled as values of {@link #pattern}, not dense. */
+    private final SparseLu sparse;
+    private final MnaSystem.Pattern pattern;
+    private final double[] gValues;
+    private final double[] cValues;
     private final double[] rowScale;
     /** Whether {@link #lu} holds factors of an iteration matrix of this run. */
     private boolean factorsValid;
@@ -130,17 +135,26 @@ final class TransientStepper {
     private boolean lastFailureSingular;
 
     TransientStepper(MnaSystem system, IntegrationMethod method) {
+        this(system, method, LinearSolvers.forSize(system.size()));
+    }
+
+    /** As {@link #TransientStepper(MnaSystem, IntegrationMethod)} with a given linear solver. */
+    TransientStepper(MnaSystem system, IntegrationMethod method, LinearSolver solver) {
         this.system = system;
         this.method = method;
         this.n = system.size();
         this.f = new double[n];
-        this.g = new double[n][n];
         this.q = new double[n];
-        this.c = new double[n][n];
+        this.sparse = solver instanceof SparseLu sp ? sp : null;
+        this.pattern = sparse != null ? system.pattern() : null;
+        this.gValues = sparse != null ? new double[pattern.entries()] : null;
+        this.cValues = sparse != null ? new double[pattern.entries()] : null;
+        this.g = sparse != null ? null : new double[n][n];
+        this.c = sparse != null ? null : new double[n][n];
         this.r = new double[n];
         this.hist = new double[n];
         this.rowScale = new double[n];
-        this.lu = LinearSolvers.forSize(n);
+        this.lu = solver;
         this.histX = new double[HISTORY][n];
         this.histQ = new double[HISTORY][n];
         this.controlled = new boolean[n];
@@ -368,8 +382,27 @@ final class TransientStepper {
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             newtonIterations++;
             boolean refresh = refreshJacobian;
-            system.evaluate(x, t, Mode.DYNAMIC, 1, 0, f, refresh ? g : null, q, refresh ? c : null);
-            if (refresh) {
+            if (!refresh || sparse == null) {
+                system.evaluate(x, t, Mode.DYNAMIC, 1, 0, f, refresh ? g : null, q, refresh ? c : null);
+            }
+            if (refresh && sparse != null) {
+                system.evaluateSparse(x, t, f, gValues, q, cValues);
+                int[] rowStart = pattern.rowStart;
+                for (int i = 0; i < n; i++) {
+                    double scale = 0;
+                    for (int p = rowStart[i]; p < rowStart[i + 1]; p++) {
+                        gValues[p] += a0h * cValues[p];
+                        scale = Math.max(scale, Math.abs(gValues[p]));
+                    }
+                    double inv = scale > 0 && Double.isFinite(scale) ? 1 / scale : 1;
+                    rowScale[i] = inv;
+                    if (inv != 1) {
+                        for (int p = rowStart[i]; p < rowStart[i + 1]; p++) {
+                            gValues[p] *= inv;
+                        }
+                    }
+                }
+            } else if (refresh) {
                 for (int i = 0; i < n; i++) {
                     double[] gi = g[i];
                     double[] ci = c[i];
@@ -388,9 +421,15 @@ final class TransientStepper {
                         }
                     }
                 }
+            }
+            if (refresh) {
                 factorizations++;
                 try {
-                    lu.factor(g, n);
+                    if (sparse != null) {
+                        sparse.factor(pattern, gValues);
+                    } else {
+                        lu.factor(g, n);
+                    }
                 } catch (AnalysisException e) {
                     factorsValid = false;
                     lastFailureSingular = true;
