@@ -29,8 +29,7 @@ import java.util.concurrent.TimeUnit;
 @Measurement(iterations = 5, time = 1)
 @Fork(1)
 public class DesignAnalysisBench {
-    @Param({"handheld-recorder-mic-preamp", "instrument-boost-9v", "li-ion-sensor-front-end",
-            "review-faults", "review-faults-second-pass", "usb-line-driver", "generated-16"})
+    @Param({"handheld-recorder-mic-preamp", "li-ion-sensor-front-end", "usb-line-driver", "generated-16"})
     public String design;
 
     private Design d;

@@ -251,6 +251,7 @@ public final class DcSolver {
 
     /** The solution of the circuit with every limiter switched off, from x = 0. */
     private void linearStart(double[] x) {
+        jacobianAtX = false;
         Arrays.fill(x, 0);
         system.evaluate(x, 0, Mode.DC, 1, 0, false, f, g, null, null);
         lu.factor(g, n);
@@ -529,6 +530,9 @@ public final class DcSolver {
                 x[i] = next;
             }
             if (converged) {
+                // The factors are those of the true Jacobian at the previous iterate, which the
+                // converged step moved by less than the tolerance: the stability check reuses them.
+                jacobianAtX = scale == 1 && gmin == 0 && gainScale == 1;
                 return true;
             }
         }
@@ -550,6 +554,7 @@ public final class DcSolver {
      * False when the matrix is singular.
      */
     private boolean step(double[] x, double scale, double gmin) {
+        jacobianAtX = false;
         system.evaluate(x, 0, Mode.DC, scale, gmin, true, gainScale, f, g, null, null);
         for (int j = 0; j < opAmpCount; j++) {
             switch (rowKind[j]) {
@@ -652,7 +657,6 @@ public final class DcSolver {
      */
     private void preferStable(double[] x) {
         int[] mode = new int[opAmpCount];
-        jacobianAtX = false;
         for (int j = 0; j < opAmpCount; j++) {
             system.opAmpLimiter(j, x, 1, 1, limiter);
             double u = limiter[0];
@@ -690,7 +694,8 @@ public final class DcSolver {
      * <p>Opening row s (replacing it by the unit row) is a rank-one change of the Jacobian G, so by
      * the Sherman–Morrison formula the opened system's response to a unit state change is
      * z / z_s with z = G⁻¹·e_s (Golub and Van Loan, Matrix Computations, §2.1.4): one
-     * factorisation of G serves every op-amp of the circuit. When G is singular or z_s is within
+     * factorisation of G serves every op-amp of the circuit, and when the operating point has just
+     * converged it is the factorisation of Newton's last iteration. When G is singular or z_s is within
      * {@link #LOOP_GAIN_DIRECT_BELOW} of zero (a loop gain near ±1/that, where the sign would be
      * uncertain), the opened matrix is factored directly.
      */
