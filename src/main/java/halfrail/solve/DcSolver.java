@@ -127,6 +127,9 @@ public final class DcSolver {
     private final int[] rowKind;
     private final double[] limiter = new double[4];
     private final LinearSolver lu;
+    /** The solver when it is sparse; it then reads only {@link #pattern} of {@link #g}. */
+    private final SparseLu sparse;
+    private final MnaSystem.Pattern pattern;
     private int iterations;
     /** Whether {@link #lu} holds the factors of the true Jacobian at the point preferStable examines. */
     private boolean jacobianAtX;
@@ -154,6 +157,8 @@ public final class DcSolver {
         this.rowMagnitude = new double[n];
         this.rowKind = new int[opAmpCount];
         this.lu = solver;
+        this.sparse = solver instanceof SparseLu sp ? sp : null;
+        this.pattern = sparse != null ? system.pattern() : null;
     }
 
     /** Solve {@code circuit}'s operating point. */
@@ -254,7 +259,7 @@ public final class DcSolver {
         jacobianAtX = false;
         Arrays.fill(x, 0);
         system.evaluate(x, 0, Mode.DC, 1, 0, false, f, g, null, null);
-        lu.factor(g, n);
+        factor();
         for (int i = 0; i < n; i++) {
             dx[i] = -f[i];
         }
@@ -567,13 +572,20 @@ public final class DcSolver {
         for (int i = 0; i < nodeCount; i++) {
             double m = 0;
             double[] row = g[i];
-            for (int k = 0; k < n; k++) {
-                m += Math.abs(row[k] * x[k]);
+            if (pattern != null) {
+                for (int p = pattern.rowStart[i]; p < pattern.rowStart[i + 1]; p++) {
+                    int k = pattern.columns[p];
+                    m += Math.abs(row[k] * x[k]);
+                }
+            } else {
+                for (int k = 0; k < n; k++) {
+                    m += Math.abs(row[k] * x[k]);
+                }
             }
             rowMagnitude[i] = m;
         }
         try {
-            lu.factor(g, n);
+            factor();
         } catch (AnalysisException e) {
             return false;
         }
@@ -704,7 +716,7 @@ public final class DcSolver {
         if (!jacobianAtX && !jacobianSingular) {
             system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
             try {
-                lu.factor(g, n);
+                factor();
                 jacobianAtX = true;
             } catch (AnalysisException e) {
                 jacobianSingular = true;
@@ -724,7 +736,7 @@ public final class DcSolver {
         Arrays.fill(g[st], 0, n, 0);
         g[st][st] = 1;
         try {
-            lu.factor(g, n);
+            factor();
         } catch (AnalysisException e) {
             return Double.NaN;
         }
@@ -732,6 +744,18 @@ public final class DcSolver {
         dx[st] = 1;
         lu.solve(dx);
         return system.opAmpTargetChange(j, dx);
+    }
+
+    /**
+     * Factor {@link #g}: a sparse solver reads only the circuit's pattern (every entry the
+     * equations and the row replacements can write lies in it), a dense one the whole array.
+     */
+    private void factor() {
+        if (sparse != null) {
+            sparse.factor(pattern, g);
+        } else {
+            lu.factor(g, n);
+        }
     }
 
     /** Node voltages and op-amp states are voltages; branch currents are not. */

@@ -1,18 +1,20 @@
 package halfrail.solve;
 
 /**
- * Chooses the real linear solver by system size: {@link DenseLu} for stage-sized systems, where
+ * Chooses the real linear solver by system size: {@link DenseLu} for the smallest systems, where
  * its tight loops beat any bookkeeping, {@link SparseLu} from {@link #SPARSE_FROM_UNKNOWNS}
- * unknowns on, where the dense solver's cubic cost takes over (a 64-stage chain has about 400
- * unknowns and some 5 entries per row).
+ * unknowns on, where the dense solver's cubic cost (and the n² of clearing and reading a dense
+ * matrix) takes over. A circuit row holds some 3 to 6 entries; a 64-stage chain has about 500
+ * unknowns.
  */
 final class LinearSolvers {
     /**
-     * Number of unknowns from which the sparse solver is used. Set from the benchmarks of the
-     * generated stage chains (OperatingPointBench, LinearSolverBench): below it the dense
-     * solver is as fast or faster.
+     * Number of unknowns from which the sparse solver is used. Set from measurements on the
+     * generated stage chains (thread CPU time, 2026-12-02): at 13 unknowns (one stage) the DC
+     * operating point costs the same either way and the power-on transient half as much sparse;
+     * at 25 unknowns (three stages) sparse halves both.
      */
-    static final int SPARSE_FROM_UNKNOWNS = 60;
+    static final int SPARSE_FROM_UNKNOWNS = 10;
 
     private LinearSolvers() {}
 

@@ -67,6 +67,7 @@ public final class SparseLu implements LinearSolver {
     /** The pattern whose column store and order are set up, for {@link #factor(MnaSystem.Pattern, double[])}. */
     private MnaSystem.Pattern lastPattern;
     private int[] toColumn;
+    private double[] gathered;
     /** Whether the factors' patterns and pivot order may serve a numeric {@link #refactor}. */
     private boolean refactorReady;
 
@@ -98,6 +99,26 @@ public final class SparseLu implements LinearSolver {
         }
         decompose();
         factored = true;
+    }
+
+    /**
+     * Factor the dense array {@code a} reading only the positions of a circuit's pattern: every
+     * entry outside it must be zero (as in a matrix {@link MnaSystem#evaluate} filled, with rows
+     * replaced only within the pattern). The cost follows the entries, not n².
+     *
+     * @throws AnalysisException SINGULAR as {@link #factor(double[][], int)}
+     */
+    void factor(MnaSystem.Pattern p, double[][] a) {
+        if (gathered == null || gathered.length < p.entries()) {
+            gathered = new double[p.entries()];
+        }
+        for (int i = 0; i < p.size; i++) {
+            double[] row = a[i];
+            for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
+                gathered[k] = row[p.columns[k]];
+            }
+        }
+        factor(p, gathered);
     }
 
     /**
