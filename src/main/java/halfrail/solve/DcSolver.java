@@ -129,6 +129,11 @@ public final class DcSolver {
     private final LinearSolver lu;
     /** The solver when it is sparse; it then reads only {@link #pattern} of {@link #g}. */
     private final SparseLu sparse;
+    /**
+     * The circuit's pattern when the solver is sparse. Then {@link #g} holds nonzeros only inside
+     * it (the sparse solver reads g without writing it, and every row replacement stays inside),
+     * so evaluating clears only the pattern.
+     */
     private final MnaSystem.Pattern pattern;
     private int iterations;
     /** Whether {@link #lu} holds the factors of the true Jacobian at the point preferStable examines. */
@@ -258,7 +263,7 @@ public final class DcSolver {
     private void linearStart(double[] x) {
         jacobianAtX = false;
         Arrays.fill(x, 0);
-        system.evaluate(x, 0, Mode.DC, 1, 0, false, f, g, null, null);
+        system.evaluate(x, 0, Mode.DC, 1, 0, false, 1, sparse != null, f, g, null, null);
         factor();
         for (int i = 0; i < n; i++) {
             dx[i] = -f[i];
@@ -560,7 +565,7 @@ public final class DcSolver {
      */
     private boolean step(double[] x, double scale, double gmin) {
         jacobianAtX = false;
-        system.evaluate(x, 0, Mode.DC, scale, gmin, true, gainScale, f, g, null, null);
+        system.evaluate(x, 0, Mode.DC, scale, gmin, true, gainScale, sparse != null, f, g, null, null);
         for (int j = 0; j < opAmpCount; j++) {
             switch (rowKind[j]) {
                 case ROW_UNLIMITED -> system.unlimitedStateRow(j, x, scale, gainScale, f, g);
@@ -714,7 +719,7 @@ public final class DcSolver {
     private double loopGain(int j, double[] x) {
         int st = system.opAmpStateUnknown(j);
         if (!jacobianAtX && !jacobianSingular) {
-            system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
+            system.evaluate(x, 0, Mode.DC, 1, 0, true, 1, sparse != null, f, g, null, null);
             try {
                 factor();
                 jacobianAtX = true;
@@ -732,7 +737,7 @@ public final class DcSolver {
             }
         }
         jacobianAtX = false;
-        system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
+        system.evaluate(x, 0, Mode.DC, 1, 0, true, 1, sparse != null, f, g, null, null);
         Arrays.fill(g[st], 0, n, 0);
         g[st][st] = 1;
         try {

@@ -56,6 +56,8 @@ public final class MnaSystem {
     private final int size;
     private final Device[] devices;
     private final OpAmpDevice[] opAmps;
+    /** Op-amps by element name, for {@link #saturated} (a scan over the devices made that quadratic in the stage count). */
+    private final Map<String, OpAmpDevice> opAmpByName;
 
     private MnaSystem(Circuit circuit) {
         this.circuit = circuit;
@@ -97,6 +99,11 @@ public final class MnaSystem {
             }
         }
         this.opAmps = amps.toArray(new OpAmpDevice[0]);
+        Map<String, OpAmpDevice> byName = new HashMap<>();
+        for (OpAmpDevice o : opAmps) {
+            byName.put(o.part.name(), o);
+        }
+        this.opAmpByName = Collections.unmodifiableMap(byName);
     }
 
     /** Assemble the equations of {@code circuit}. */
@@ -201,8 +208,26 @@ public final class MnaSystem {
      */
     void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit, double gainScale,
                   double[] f, double[][] g, double[] q, double[][] c) {
+        evaluate(x, t, mode, sourceScale, gmin, limit, gainScale, false, f, g, q, c);
+    }
+
+    /**
+     * As above; with {@code patternOnly}, g is cleared only at the positions of {@link #pattern()}
+     * (O(entries) instead of O(n²)): the caller guarantees that every other entry of g is zero,
+     * as it is when g was only ever filled by this method and changed within the pattern.
+     */
+    void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit, double gainScale,
+                  boolean patternOnly, double[] f, double[][] g, double[] q, double[][] c) {
         java.util.Arrays.fill(f, 0, size, 0);
-        if (g != null) {
+        if (g != null && patternOnly) {
+            Pattern p = pattern();
+            for (int i = 0; i < size; i++) {
+                double[] row = g[i];
+                for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
+                    row[p.columns[k]] = 0;
+                }
+            }
+        } else if (g != null) {
             for (int i = 0; i < size; i++) {
                 java.util.Arrays.fill(g[i], 0, size, 0);
             }
@@ -353,12 +378,11 @@ public final class MnaSystem {
      * that is whether the part has left its linear region.
      */
     public boolean saturated(double[] x, String name) {
-        for (Device d : devices) {
-            if (d instanceof OpAmpDevice o && o.part.name().equals(name)) {
-                return o.saturated(x);
-            }
+        OpAmpDevice o = opAmpByName.get(name);
+        if (o == null) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
         }
-        throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
+        return o.saturated(x);
     }
 
     /** Number of op-amps, in circuit order (for the DC solver's limiter handling). */
