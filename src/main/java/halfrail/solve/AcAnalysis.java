@@ -59,77 +59,28 @@ public final class AcAnalysis {
     private final double[] xRe;
     private final double[] xIm;
     private final ComplexLinearSolver lu;
-    // The sparse real-equivalent path (null on the dense path).
-    private final double[] gValues;
-    private final double[] cValues;
-    private final MnaSystem.Pattern realPattern;
-    private final double[] realValues;
-    private final double[] realWork;
-    private final SparseLu realLu;
     private final Map<String, double[]> directions = new HashMap<>();
 
     /** Linearise the circuit of {@code operatingPoint} at that point. */
     public AcAnalysis(OperatingPoint operatingPoint) {
-        this(operatingPoint, null);
+        this(operatingPoint, new DenseComplexLu());
     }
 
-    /**
-     * As {@link #AcAnalysis(OperatingPoint)}, with a given complex solver; null chooses by size:
-     * {@link DenseComplexLu} below {@link LinearSolvers#SPARSE_FROM_UNKNOWNS} unknowns, above it
-     * the equivalent real system of twice the size, [G −ωC; ωC G]·[Re; Im] = [b; 0], on the
-     * circuit's pattern with {@link SparseLu} (which refactors on its kept pivot order from one
-     * frequency to the next).
-     */
+    /** As {@link #AcAnalysis(OperatingPoint)}, with a given complex solver. */
     public AcAnalysis(OperatingPoint operatingPoint, ComplexLinearSolver solver) {
         this.operatingPoint = operatingPoint;
         this.system = operatingPoint.system();
         this.n = system.size();
+        this.g = new double[n][n];
+        this.c = new double[n][n];
+        this.workRe = new double[n][n];
+        this.workIm = new double[n][n];
         this.xRe = new double[n];
         this.xIm = new double[n];
+        this.lu = solver;
         double[] f = new double[n];
         double[] q = new double[n];
-        if (solver == null && n >= LinearSolvers.SPARSE_FROM_UNKNOWNS) {
-            MnaSystem.Pattern p = system.pattern();
-            int entries = p.entries();
-            gValues = new double[entries];
-            cValues = new double[entries];
-            system.evaluateSparse(operatingPoint.solution(), 0, f, gValues, q, cValues);
-            int[] rowStart = new int[2 * n + 1];
-            int[] columns = new int[4 * entries];
-            int k = 0;
-            for (int half = 0; half < 2; half++) {
-                for (int i = 0; i < n; i++) {
-                    for (int part = 0; part < 2; part++) {
-                        for (int e = p.rowStart[i]; e < p.rowStart[i + 1]; e++) {
-                            columns[k++] = p.columns[e] + part * n;
-                        }
-                    }
-                    rowStart[half * n + i + 1] = k;
-                }
-            }
-            realPattern = new MnaSystem.Pattern(2 * n, rowStart, columns);
-            realValues = new double[4 * entries];
-            realWork = new double[2 * n];
-            realLu = new SparseLu();
-            this.g = null;
-            this.c = null;
-            this.workRe = null;
-            this.workIm = null;
-            this.lu = null;
-        } else {
-            this.g = new double[n][n];
-            this.c = new double[n][n];
-            this.workRe = new double[n][n];
-            this.workIm = new double[n][n];
-            this.lu = solver == null ? new DenseComplexLu() : solver;
-            system.evaluate(operatingPoint.solution(), 0, Mode.DYNAMIC, 1, 0, f, g, q, c);
-            gValues = null;
-            cValues = null;
-            realPattern = null;
-            realValues = null;
-            realWork = null;
-            realLu = null;
-        }
+        system.evaluate(operatingPoint.solution(), 0, Mode.DYNAMIC, 1, 0, f, g, q, c);
     }
 
     /** Solve the operating point of {@code circuit} with {@link DcSolver} and linearise there. */
@@ -295,10 +246,6 @@ public final class AcAnalysis {
 
     private void solveAt(double hz, double[] b) {
         double omega = 2 * Math.PI * hz;
-        if (realLu != null) {
-            solveSparseAt(hz, omega, b);
-            return;
-        }
         for (int i = 0; i < n; i++) {
             double[] gi = g[i];
             double[] ci = c[i];
@@ -317,32 +264,6 @@ public final class AcAnalysis {
         System.arraycopy(b, 0, xRe, 0, n);
         java.util.Arrays.fill(xIm, 0);
         lu.solve(xRe, xIm);
-    }
-
-    private void solveSparseAt(double hz, double omega, double[] b) {
-        MnaSystem.Pattern p = system.pattern();
-        int k = 0;
-        for (int half = 0; half < 2; half++) {
-            for (int i = 0; i < n; i++) {
-                // row i: G then −ωC; row n + i: ωC then G
-                for (int e = p.rowStart[i]; e < p.rowStart[i + 1]; e++) {
-                    realValues[k++] = half == 0 ? gValues[e] : omega * cValues[e];
-                }
-                for (int e = p.rowStart[i]; e < p.rowStart[i + 1]; e++) {
-                    realValues[k++] = half == 0 ? -omega * cValues[e] : gValues[e];
-                }
-            }
-        }
-        try {
-            realLu.factor(realPattern, realValues);
-        } catch (AnalysisException e) {
-            throw new AnalysisException(e.kind(), "at " + hz + " Hz: " + e.getMessage(), e.nodes());
-        }
-        System.arraycopy(b, 0, realWork, 0, n);
-        java.util.Arrays.fill(realWork, n, 2 * n, 0);
-        realLu.solve(realWork);
-        System.arraycopy(realWork, 0, xRe, 0, n);
-        System.arraycopy(realWork, n, xIm, 0, n);
     }
 
     private static double value(double[] x, int i) {
