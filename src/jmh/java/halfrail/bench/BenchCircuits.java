@@ -3,6 +3,15 @@ package halfrail.bench;
 import halfrail.circuit.Capacitor;
 import halfrail.circuit.Circuit;
 import halfrail.circuit.OpAmpParams;
+import halfrail.design.Design;
+import halfrail.design.DesignCircuit;
+import halfrail.design.DesignCircuits;
+import halfrail.design.Stage;
+import halfrail.io.DesignFiles;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 
 /**
  * Generated circuits for the benchmarks: chains of single-supply non-inverting stages, each
@@ -11,6 +20,49 @@ import halfrail.circuit.OpAmpParams;
  */
 final class BenchCircuits {
     private BenchCircuits() {}
+
+    /** Folder of the sample designs, relative to the working directory (system property {@code halfrail.samples}). */
+    static final String SAMPLES = System.getProperty("halfrail.samples", "samples");
+
+    /** A circuit with its signal input and output, for the benchmarks. */
+    record Case(String name, Circuit circuit, String input, String output, Design design) {
+    }
+
+    /**
+     * A benchmark case by name: {@code chain-N} ({@link #chain}), {@code scaling-N}
+     * ({@link #scalingChain}), a sample design's file name without {@code .json} (its nominal
+     * circuit), or {@code generated-N}: the recorder preamp sample with its stages repeated up
+     * to N stages.
+     */
+    static Case named(String name) {
+        if (name.startsWith("chain-")) {
+            return new Case(name, chain(Integer.parseInt(name.substring(6))), "VSIG", "load", null);
+        }
+        if (name.startsWith("scaling-")) {
+            return new Case(name, scalingChain(Integer.parseInt(name.substring(8))), "VSIG", "load", null);
+        }
+        Design d = name.startsWith("generated-") ? generated(Integer.parseInt(name.substring(10))) : sample(name);
+        DesignCircuit dc = DesignCircuits.nominal(d);
+        return new Case(name, dc.circuit(), dc.signalSource(), dc.loadNode(), d);
+    }
+
+    /** A sample design read from {@link #SAMPLES}. */
+    static Design sample(String name) {
+        return DesignFiles.read(Path.of(SAMPLES, name + ".json"));
+    }
+
+    /** The recorder preamp sample with its stages repeated (names numbered) up to {@code stages} stages. */
+    static Design generated(int stages) {
+        Design base = sample("handheld-recorder-mic-preamp");
+        List<Stage> list = new ArrayList<>();
+        for (int i = 0; list.size() < stages; i++) {
+            Stage s = base.stages().get(i % base.stages().size());
+            list.add(new Stage(s.name() + "-" + (i + 1), s.kind(), s.opAmp(), s.feedbackOhms(), s.legOhms(),
+                    s.legCapacitor(), s.inputCapacitor(), s.biased()));
+        }
+        return new Design(base.name() + " × " + stages, base.description(), base.supply(), base.reference(), list,
+                base.source(), base.load(), base.thresholds(), base.powerOnRampSeconds());
+    }
 
     /** Op-amp used in every generated stage: a representative single-supply part. */
     static final OpAmpParams PART = OpAmpParams.defaults().withSwing(0.02, 1.5).withCommonMode(0, 1.5)
@@ -23,6 +75,23 @@ final class BenchCircuits {
      * about 20 nodes. Time constants span from the 1 µs input filter to the 2 s reference.
      */
     static Circuit chain(int stages) {
+        return chain(stages, false);
+    }
+
+    /**
+     * The scaling chain: as {@link #chain(int)}, but each stage after the first is fed through a
+     * 10 kΩ / 1 kΩ divider (1/11, so every stage has a net gain of 1) and has its own decoupled
+     * mid-rail divider (20 kΩ / 20 kΩ, 200 µF). In {@link #chain(int)} the gains of 11 multiply:
+     * from four stages on, the power-on step of the first stage drives the later ones rail to
+     * rail for seconds (each stage's two 1.5 Hz high-pass corners make it ring), and the time
+     * steps measure that ringing, not the solver. Here every stage does the same work, so the
+     * cost per stage can be compared.
+     */
+    static Circuit scalingChain(int stages) {
+        return chain(stages, true);
+    }
+
+    private static Circuit chain(int stages, boolean ownReference) {
         Circuit.Builder b = Circuit.builder().implicitNodes().title(stages + "-stage chain");
         b.add(new halfrail.circuit.VoltageSource("VSUP", "vcc", "0", 9, 0, 1, 1e-3));
         b.resistor("RA", "vcc", "ref", 20e3).resistor("RB", "ref", "0", 20e3);
@@ -35,8 +104,17 @@ final class BenchCircuits {
             String n = "s" + i + "n";
             String leg = "s" + i + "leg";
             String out = "s" + i + "out";
-            b.add(new Capacitor("CIN" + i, p, prev, 1e-6, 0.1, "polyester-film", 50, false, 1e-11));
-            b.resistor("RBIAS" + i, "ref", p, 100e3);
+            String ref = "ref";
+            String in = prev;
+            if (ownReference && i > 1) {
+                ref = "s" + i + "ref";
+                b.resistor("RA" + i, "vcc", ref, 20e3).resistor("RB" + i, ref, "0", 20e3);
+                b.capacitor("CREF" + i, ref, "0", 200e-6);
+                in = "s" + i + "att";
+                b.resistor("RT" + i, prev, in, 10e3).resistor("RD" + i, in, ref, 1e3);
+            }
+            b.add(new Capacitor("CIN" + i, p, in, 1e-6, 0.1, "polyester-film", 50, false, 1e-11));
+            b.resistor("RBIAS" + i, ref, p, 100e3);
             b.resistor("R2_" + i, out, n, 47e3);
             b.resistor("R1_" + i, n, leg, 4.7e3);
             b.add(new Capacitor("CLEG" + i, leg, "0", 22e-6, 0.1, "tantalum", 16, true, 1e-10));

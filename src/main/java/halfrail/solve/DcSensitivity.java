@@ -11,7 +11,7 @@ package halfrail.solve;
 public final class DcSensitivity {
     private final MnaSystem system;
     private final double[][] g;
-    private final DenseLu lu = new DenseLu();
+    private final LinearSolver lu;
 
     /** Linearise at {@code op}. @throws AnalysisException SINGULAR when the linearised system is singular */
     public DcSensitivity(OperatingPoint op) {
@@ -23,6 +23,7 @@ public final class DcSensitivity {
         int n = system.size();
         double[] f = new double[n];
         this.g = new double[n][n];
+        this.lu = LinearSolvers.forSize(n);
         system.evaluate(op.solution(), 0, Mode.DC, 1, 0, limit, f, g, null, null);
         lu.factor(g, n);
     }

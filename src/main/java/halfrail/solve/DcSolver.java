@@ -102,6 +102,12 @@ public final class DcSolver {
      * dominant-pole dynamics dx/dt = ωp·(u − x) any disturbance grows.
      */
     public static final double UNSTABLE_LOOP_GAIN = 1;
+    /**
+     * Smallest |z_s| (dimensionless, the diagonal of G⁻¹ at an op-amp state) for which the loop
+     * gain 1 − 1/z_s is taken from the shared factorisation; below it the opened matrix is
+     * factored directly (loop gains beyond about 1e7 in magnitude).
+     */
+    static final double LOOP_GAIN_DIRECT_BELOW = 1e-7;
 
     private static final int ROW_LIMITED = 0;
     private static final int ROW_UNLIMITED = 1;
@@ -120,13 +126,30 @@ public final class DcSolver {
     /** Row used for each op-amp's state in the current iteration: one of the ROW_ constants. */
     private final int[] rowKind;
     private final double[] limiter = new double[4];
-    private final LinearSolver lu = new DenseLu();
+    private final LinearSolver lu;
+    /** The solver when it is sparse; it then reads only {@link #pattern} of {@link #g}. */
+    private final SparseLu sparse;
+    /**
+     * The circuit's pattern when the solver is sparse. Then {@link #g} holds nonzeros only inside
+     * it (the sparse solver reads g without writing it, and every row replacement stays inside),
+     * so evaluating clears only the pattern.
+     */
+    private final MnaSystem.Pattern pattern;
     private int iterations;
+    /** Whether {@link #lu} holds the factors of the true Jacobian at the point preferStable examines. */
+    private boolean jacobianAtX;
+    /** Whether that Jacobian turned out singular (then each loop gain is found directly). */
+    private boolean jacobianSingular;
     /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
     private double gainScale = 1;
     private boolean linearStartSingular;
 
     public DcSolver(MnaSystem system) {
+        this(system, LinearSolvers.forSize(system.size()));
+    }
+
+    /** As {@link #DcSolver(MnaSystem)} with a given linear solver (tests compare the solvers). */
+    DcSolver(MnaSystem system, LinearSolver solver) {
         this.system = system;
         this.n = system.size();
         this.nodeCount = system.nodeCount();
@@ -138,6 +161,9 @@ public final class DcSolver {
         this.dx = new double[n];
         this.rowMagnitude = new double[n];
         this.rowKind = new int[opAmpCount];
+        this.lu = solver;
+        this.sparse = solver instanceof SparseLu sp ? sp : null;
+        this.pattern = sparse != null ? system.pattern() : null;
     }
 
     /** Solve {@code circuit}'s operating point. */
@@ -235,9 +261,10 @@ public final class DcSolver {
 
     /** The solution of the circuit with every limiter switched off, from x = 0. */
     private void linearStart(double[] x) {
+        jacobianAtX = false;
         Arrays.fill(x, 0);
-        system.evaluate(x, 0, Mode.DC, 1, 0, false, f, g, null, null);
-        lu.factor(g, n);
+        system.evaluate(x, 0, Mode.DC, 1, 0, false, 1, sparse != null, f, g, null, null);
+        factor();
         for (int i = 0; i < n; i++) {
             dx[i] = -f[i];
         }
@@ -513,6 +540,9 @@ public final class DcSolver {
                 x[i] = next;
             }
             if (converged) {
+                // The factors are those of the true Jacobian at the previous iterate, which the
+                // converged step moved by less than the tolerance: the stability check reuses them.
+                jacobianAtX = scale == 1 && gmin == 0 && gainScale == 1;
                 return true;
             }
         }
@@ -534,7 +564,8 @@ public final class DcSolver {
      * False when the matrix is singular.
      */
     private boolean step(double[] x, double scale, double gmin) {
-        system.evaluate(x, 0, Mode.DC, scale, gmin, true, gainScale, f, g, null, null);
+        jacobianAtX = false;
+        system.evaluate(x, 0, Mode.DC, scale, gmin, true, gainScale, sparse != null, f, g, null, null);
         for (int j = 0; j < opAmpCount; j++) {
             switch (rowKind[j]) {
                 case ROW_UNLIMITED -> system.unlimitedStateRow(j, x, scale, gainScale, f, g);
@@ -546,13 +577,20 @@ public final class DcSolver {
         for (int i = 0; i < nodeCount; i++) {
             double m = 0;
             double[] row = g[i];
-            for (int k = 0; k < n; k++) {
-                m += Math.abs(row[k] * x[k]);
+            if (pattern != null) {
+                for (int p = pattern.rowStart[i]; p < pattern.rowStart[i + 1]; p++) {
+                    int k = pattern.columns[p];
+                    m += Math.abs(row[k] * x[k]);
+                }
+            } else {
+                for (int k = 0; k < n; k++) {
+                    m += Math.abs(row[k] * x[k]);
+                }
             }
             rowMagnitude[i] = m;
         }
         try {
-            lu.factor(g, n);
+            factor();
         } catch (AnalysisException e) {
             return false;
         }
@@ -647,6 +685,7 @@ public final class DcSolver {
             }
             int st = system.opAmpStateUnknown(j);
             boolean upperFirst = x[st] >= 0.5 * (lo + hi);
+            jacobianAtX = false; // the solves below factor other matrices
             for (int attempt = 0; attempt < 2; attempt++) {
                 boolean high = upperFirst == (attempt == 0);
                 double[] trial = x.clone();
@@ -668,14 +707,41 @@ public final class DcSolver {
      * Loop gain of op-amp {@code j} at x: the change of its target u per volt of change of its
      * state, with the rest of the circuit linearised at x and the op-amp's own state row opened.
      * NaN when the opened circuit is singular.
+     *
+     * <p>Opening row s (replacing it by the unit row) is a rank-one change of the Jacobian G, so by
+     * the Sherman–Morrison formula the opened system's response to a unit state change is
+     * z / z_s with z = G⁻¹·e_s (Golub and Van Loan, Matrix Computations, §2.1.4): one
+     * factorisation of G serves every op-amp of the circuit, and when the operating point has just
+     * converged it is the factorisation of Newton's last iteration. When G is singular or z_s is within
+     * {@link #LOOP_GAIN_DIRECT_BELOW} of zero (a loop gain near ±1/that, where the sign would be
+     * uncertain), the opened matrix is factored directly.
      */
     private double loopGain(int j, double[] x) {
-        system.evaluate(x, 0, Mode.DC, 1, 0, f, g, null, null);
         int st = system.opAmpStateUnknown(j);
+        if (!jacobianAtX && !jacobianSingular) {
+            system.evaluate(x, 0, Mode.DC, 1, 0, true, 1, sparse != null, f, g, null, null);
+            try {
+                factor();
+                jacobianAtX = true;
+            } catch (AnalysisException e) {
+                jacobianSingular = true;
+            }
+        }
+        if (jacobianAtX) {
+            Arrays.fill(dx, 0);
+            dx[st] = 1;
+            lu.solve(dx);
+            double zs = dx[st];
+            if (Math.abs(zs) >= LOOP_GAIN_DIRECT_BELOW && Double.isFinite(zs)) {
+                return system.opAmpTargetChange(j, dx) / zs;
+            }
+        }
+        jacobianAtX = false;
+        system.evaluate(x, 0, Mode.DC, 1, 0, true, 1, sparse != null, f, g, null, null);
         Arrays.fill(g[st], 0, n, 0);
         g[st][st] = 1;
         try {
-            lu.factor(g, n);
+            factor();
         } catch (AnalysisException e) {
             return Double.NaN;
         }
@@ -685,12 +751,25 @@ public final class DcSolver {
         return system.opAmpTargetChange(j, dx);
     }
 
+    /**
+     * Factor {@link #g}: a sparse solver reads only the circuit's pattern (every entry the
+     * equations and the row replacements can write lies in it), a dense one the whole array.
+     */
+    private void factor() {
+        if (sparse != null) {
+            sparse.factor(pattern, g);
+        } else {
+            lu.factor(g, n);
+        }
+    }
+
     /** Node voltages and op-amp states are voltages; branch currents are not. */
     private boolean isVoltage(int i) {
         return i < nodeCount || i >= nodeCount + branchCount;
     }
 
     private OperatingPoint result(double[] x, OperatingPoint.Strategy strategy) {
+        jacobianSingular = false;
         preferStable(x);
         Circuit c = system.circuit();
         system.evaluate(x, 0, Mode.DC, 1, 0, f, null, null, null);

@@ -56,6 +56,8 @@ public final class MnaSystem {
     private final int size;
     private final Device[] devices;
     private final OpAmpDevice[] opAmps;
+    /** Op-amps by element name, for {@link #saturated} (a scan over the devices made that quadratic in the stage count). */
+    private final Map<String, OpAmpDevice> opAmpByName;
 
     private MnaSystem(Circuit circuit) {
         this.circuit = circuit;
@@ -91,6 +93,15 @@ public final class MnaSystem {
         }
         this.devices = list.toArray(new Device[0]);
         this.opAmps = opAmpDevices(devices);
+        this.opAmpByName = byName(opAmps);
+    }
+
+    private static Map<String, OpAmpDevice> byName(OpAmpDevice[] opAmps) {
+        Map<String, OpAmpDevice> byName = new HashMap<>();
+        for (OpAmpDevice o : opAmps) {
+            byName.put(o.part.name(), o);
+        }
+        return Collections.unmodifiableMap(byName);
     }
 
     private static OpAmpDevice[] opAmpDevices(Device[] devices) {
@@ -118,6 +129,7 @@ public final class MnaSystem {
             devices[i] = device(list.get(i));
         }
         this.opAmps = opAmpDevices(devices);
+        this.opAmpByName = byName(opAmps);
     }
 
     /**
@@ -246,8 +258,26 @@ public final class MnaSystem {
      */
     void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit, double gainScale,
                   double[] f, double[][] g, double[] q, double[][] c) {
+        evaluate(x, t, mode, sourceScale, gmin, limit, gainScale, false, f, g, q, c);
+    }
+
+    /**
+     * As above; with {@code patternOnly}, g is cleared only at the positions of {@link #pattern()}
+     * (O(entries) instead of O(n²)): the caller guarantees that every other entry of g is zero,
+     * as it is when g was only ever filled by this method and changed within the pattern.
+     */
+    void evaluate(double[] x, double t, Mode mode, double sourceScale, double gmin, boolean limit, double gainScale,
+                  boolean patternOnly, double[] f, double[][] g, double[] q, double[][] c) {
         java.util.Arrays.fill(f, 0, size, 0);
-        if (g != null) {
+        if (g != null && patternOnly) {
+            Pattern p = pattern();
+            for (int i = 0; i < size; i++) {
+                double[] row = g[i];
+                for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
+                    row[p.columns[k]] = 0;
+                }
+            }
+        } else if (g != null) {
             for (int i = 0; i < size; i++) {
                 java.util.Arrays.fill(g[i], 0, size, 0);
             }
@@ -268,6 +298,102 @@ public final class MnaSystem {
             for (int i = 0; i < nodeCount; i++) {
                 s.conductance(i, -1, gmin);
             }
+        }
+    }
+
+    /**
+     * The positions G and C can ever fill, row by row (the union over both modes, every limiter
+     * region and the gmin shunts): what a sparse solver needs to assemble and factor without
+     * touching the empty part of the matrix.
+     */
+    static final class Pattern {
+        /** Start of each row's entries in {@link #columns}; length size + 1. */
+        final int[] rowStart;
+        /** Column of each entry, ascending within a row. */
+        final int[] columns;
+        final int size;
+
+        Pattern(int size, int[] rowStart, int[] columns) {
+            this.size = size;
+            this.rowStart = rowStart;
+            this.columns = columns;
+        }
+
+        /** Number of entries. */
+        int entries() {
+            return columns.length;
+        }
+
+        /** Index of entry (row, col) in the value arrays. */
+        int slot(int row, int col) {
+            int lo = rowStart[row];
+            int hi = rowStart[row + 1] - 1;
+            while (lo <= hi) {
+                int mid = (lo + hi) >>> 1;
+                int v = columns[mid];
+                if (v < col) {
+                    lo = mid + 1;
+                } else if (v > col) {
+                    hi = mid - 1;
+                } else {
+                    return mid;
+                }
+            }
+            throw new IllegalStateException("entry (" + row + ", " + col + ") lies outside the circuit's pattern");
+        }
+    }
+
+    private volatile Pattern pattern;
+
+    /** The sparsity pattern of G and C (made once, on first use). */
+    Pattern pattern() {
+        Pattern p = pattern;
+        if (p == null) {
+            java.util.Set<Long> seen = new java.util.HashSet<>();
+            double[] x = new double[size];
+            double[] f = new double[size];
+            double[] q = new double[size];
+            for (Mode mode : Mode.values()) {
+                for (boolean limit : new boolean[] {true, false}) {
+                    Stamp s = new Stamp(x, f, null, q, null, limit, 1, null, null, null, seen, size);
+                    for (Device d : devices) {
+                        d.load(s, 0, mode, 1);
+                    }
+                }
+            }
+            for (int i = 0; i < size; i++) {
+                seen.add((long) i * size + i); // gmin on node rows; a diagonal slot everywhere
+            }
+            long[] keys = seen.stream().mapToLong(Long::longValue).sorted().toArray();
+            int[] rowStart = new int[size + 1];
+            int[] columns = new int[keys.length];
+            for (int k = 0; k < keys.length; k++) {
+                int row = (int) (keys[k] / size);
+                columns[k] = (int) (keys[k] % size);
+                rowStart[row + 1]++;
+            }
+            for (int i = 0; i < size; i++) {
+                rowStart[i + 1] += rowStart[i];
+            }
+            p = new Pattern(size, rowStart, columns);
+            pattern = p;
+        }
+        return p;
+    }
+
+    /**
+     * The real circuit's {@link Mode#DYNAMIC} equations at x and t, with G and C written as the
+     * values of {@link #pattern()} (cleared first) instead of dense matrices.
+     */
+    void evaluateSparse(double[] x, double t, double[] f, double[] gValues, double[] q, double[] cValues) {
+        Pattern p = pattern();
+        java.util.Arrays.fill(f, 0, size, 0);
+        java.util.Arrays.fill(q, 0, size, 0);
+        java.util.Arrays.fill(gValues, 0, p.entries(), 0);
+        java.util.Arrays.fill(cValues, 0, p.entries(), 0);
+        Stamp s = new Stamp(x, f, null, q, null, true, 1, p, gValues, cValues, null, size);
+        for (Device d : devices) {
+            d.load(s, t, Mode.DYNAMIC, 1);
         }
     }
 
@@ -302,12 +428,11 @@ public final class MnaSystem {
      * that is whether the part has left its linear region.
      */
     public boolean saturated(double[] x, String name) {
-        for (Device d : devices) {
-            if (d instanceof OpAmpDevice o && o.part.name().equals(name)) {
-                return o.saturated(x);
-            }
+        OpAmpDevice o = opAmpByName.get(name);
+        if (o == null) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
         }
-        throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
+        return o.saturated(x);
     }
 
     /** Number of op-amps, in circuit order (for the DC solver's limiter handling). */
@@ -417,8 +542,20 @@ public final class MnaSystem {
         final double[][] c;
         final boolean limit;
         final double gainScale;
+        /** Sparse targets: values of G and C in the order of {@link #pattern}; null when dense. */
+        final Pattern pattern;
+        final double[] gs;
+        final double[] cs;
+        /** When not null, the stamp only records the positions it would write (row·size + column). */
+        final java.util.Set<Long> record;
+        final int size;
 
         Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale) {
+            this(x, f, g, q, c, limit, gainScale, null, null, null, null, 0);
+        }
+
+        Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale,
+              Pattern pattern, double[] gs, double[] cs, java.util.Set<Long> record, int size) {
             this.limit = limit;
             this.gainScale = gainScale;
             this.x = x;
@@ -426,6 +563,21 @@ public final class MnaSystem {
             this.g = g;
             this.q = q;
             this.c = c;
+            this.pattern = pattern;
+            this.gs = gs;
+            this.cs = cs;
+            this.record = record;
+            this.size = size;
+        }
+
+        void c(int row, int col, double value) {
+            if (c != null) {
+                c[row][col] += value;
+            } else if (cs != null) {
+                cs[pattern.slot(row, col)] += value;
+            } else if (record != null) {
+                record.add((long) row * size + col);
+            }
         }
 
         double v(int i) {
@@ -439,8 +591,14 @@ public final class MnaSystem {
         }
 
         void g(int row, int col, double value) {
-            if (row >= 0 && col >= 0 && g != null) {
-                g[row][col] += value;
+            if (row >= 0 && col >= 0) {
+                if (g != null) {
+                    g[row][col] += value;
+                } else if (gs != null) {
+                    gs[pattern.slot(row, col)] += value;
+                } else if (record != null) {
+                    record.add((long) row * size + col);
+                }
             }
         }
 
@@ -466,17 +624,15 @@ public final class MnaSystem {
                     q[b] -= charge;
                 }
             }
-            if (c != null) {
-                if (a >= 0) {
-                    c[a][a] += cab;
-                }
-                if (b >= 0) {
-                    c[b][b] += cab;
-                }
-                if (a >= 0 && b >= 0) {
-                    c[a][b] -= cab;
-                    c[b][a] -= cab;
-                }
+            if (a >= 0) {
+                c(a, a, cab);
+            }
+            if (b >= 0) {
+                c(b, b, cab);
+            }
+            if (a >= 0 && b >= 0) {
+                c(a, b, -cab);
+                c(b, a, -cab);
             }
         }
     }
@@ -667,9 +823,7 @@ public final class MnaSystem {
                 if (s.q != null) {
                     s.q[st] += xs;
                 }
-                if (s.c != null) {
-                    s.c[st][st] += 1;
-                }
+                s.c(st, st, 1);
             }
         }
 

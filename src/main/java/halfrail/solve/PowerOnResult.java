@@ -6,7 +6,7 @@ import java.util.Optional;
 /**
  * The outcome of a {@link PowerOnTransient} run: the accepted time points with the full solution
  * at each, step statistics, how the run ended, and the settle-up figures. Immutable; arrays are
- * copied in and out.
+ * copied out (the package's runner hands its fresh arrays over).
  *
  * <p>Values between accepted points come from {@link #voltageAt}: a quadratic through three
  * neighbouring points that never spans a break point (a corner of a source ramp).
@@ -89,13 +89,13 @@ public final class PowerOnResult {
                   List<RailTime> railTimes, List<LoadStep> loadSteps) {
         this.system = system;
         this.finalPoint = finalPoint;
-        this.times = times.clone();
-        this.solutions = new double[solutions.length][];
-        for (int i = 0; i < solutions.length; i++) {
-            this.solutions[i] = solutions[i].clone();
-        }
-        this.orders = orders.clone();
-        this.restarts = restarts.clone();
+        // The arrays are taken over, not copied: the one caller (PowerOnTransient) hands over the
+        // stepper's fresh arrays, shared only with another result of the same run; nothing
+        // writes to them afterwards, and every accessor copies out.
+        this.times = times;
+        this.solutions = solutions;
+        this.orders = orders;
+        this.restarts = restarts;
         this.statistics = statistics;
         this.ending = ending;
         this.settleBandVolts = settleBandVolts;

@@ -1,8 +1,6 @@
 package halfrail.solve;
 
-import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.List;
 
 /**
  * The one time-stepping loop of the package: it integrates {@code f(x, t) + d/dt q(x) = 0}
@@ -56,6 +54,28 @@ final class TransientStepper {
     static final double CONSISTENT_START_SECONDS = 1e-12;
     /** Relative distance to a break point within which a step is stretched onto it. */
     static final double BREAK_POINT_RESOLUTION = 1e-9;
+    /**
+     * Jacobian reuse policy, part 1: the factors of the iteration matrix G + α0/h·C are kept
+     * from one Newton iteration and one time step to the next until α0/h differs from the value
+     * they were made with by more than this fraction (the stale C term then slows Newton down).
+     */
+    static final double REUSE_COEFFICIENT_CHANGE = 0.3;
+    /**
+     * Jacobian reuse policy, part 2: a contraction rate (ratio of successive update sizes) above
+     * which reused factors are made afresh at the current iterate; a rate of 1 or more also drops
+     * the update.
+     */
+    static final double REUSE_MAX_RATE = 0.01;
+    /**
+     * Jacobian reuse policy, part 4: with factors made at an earlier iterate, an update below the
+     * tolerance ends Newton only when the error it leaves, about rate × update, is below this
+     * fraction of the tolerance. Full Newton's last update leaves a quadratically small error,
+     * and the residual left must be as small as that: the op-amp state rows have slopes of
+     * 2π·GBW (about 1e7 /s), so a tolerance-sized error there is a large residual.
+     */
+    static final double REUSE_FINAL_REMAINDER = 1e-9;
+    /** Jacobian reuse policy, part 3: iterations on reused factors after which they are made afresh. */
+    static final int REUSE_MAX_ITERATIONS = 3;
     /** Newest points kept in the history: the highest-order method's past points plus its error estimate. */
     private static final int HISTORY = 4;
 
@@ -72,7 +92,8 @@ final class TransientStepper {
 
     /** The accepted points of one run. */
     record Trajectory(double[] times, double[][] solutions, int[] orders, boolean[] restarts,
-                      boolean stoppedEarly, int rejectedByError, int rejectedByNewton, int newtonIterations) {
+                      boolean stoppedEarly, int rejectedByError, int rejectedByNewton, int newtonIterations,
+                      int factorizations) {
     }
 
     private final MnaSystem system;
@@ -89,7 +110,20 @@ final class TransientStepper {
     private final double[] steps = new double[HISTORY];
     private final double[] divided = new double[HISTORY + 1];
     private final double[] tt = new double[HISTORY + 1];
-    private final LinearSolver lu = new DenseLu();
+    private final LinearSolver lu;
+    /** The solver when it is sparse: then G and C are assembled as values of {@link #pattern}, not dense. */
+    private final SparseLu sparse;
+    private final MnaSystem.Pattern pattern;
+    private final double[] gValues;
+    private final double[] cValues;
+    private final double[] rowScale;
+    /** Whether {@link #lu} holds factors of an iteration matrix of this run. */
+    private boolean factorsValid;
+    /** α0/h of the factored iteration matrix, 1/s. */
+    private double factoredCoefficient;
+    /** Whether the next Newton iteration must factor the iteration matrix afresh. */
+    private boolean refreshJacobian = true;
+    private int factorizations;
 
     // History since the last restart, newest first.
     private final double[] histT = new double[HISTORY];
@@ -101,15 +135,26 @@ final class TransientStepper {
     private boolean lastFailureSingular;
 
     TransientStepper(MnaSystem system, IntegrationMethod method) {
+        this(system, method, LinearSolvers.forSize(system.size()));
+    }
+
+    /** As {@link #TransientStepper(MnaSystem, IntegrationMethod)} with a given linear solver. */
+    TransientStepper(MnaSystem system, IntegrationMethod method, LinearSolver solver) {
         this.system = system;
         this.method = method;
         this.n = system.size();
         this.f = new double[n];
-        this.g = new double[n][n];
         this.q = new double[n];
-        this.c = new double[n][n];
+        this.sparse = solver instanceof SparseLu sp ? sp : null;
+        this.pattern = sparse != null ? system.pattern() : null;
+        this.gValues = sparse != null ? new double[pattern.entries()] : null;
+        this.cValues = sparse != null ? new double[pattern.entries()] : null;
+        this.g = sparse != null ? null : new double[n][n];
+        this.c = sparse != null ? null : new double[n][n];
         this.r = new double[n];
         this.hist = new double[n];
+        this.rowScale = new double[n];
+        this.lu = solver;
         this.histX = new double[HISTORY][n];
         this.histQ = new double[HISTORY][n];
         this.controlled = new boolean[n];
@@ -127,11 +172,11 @@ final class TransientStepper {
 
     /** Integrate from power-on (every charge zero) to the stop time or an early stop. */
     Trajectory run(Settings s, EarlyStop earlyStop) {
-        List<double[]> xs = new ArrayList<>();
-        List<Double> ts = new ArrayList<>();
-        List<Integer> orders = new ArrayList<>();
-        List<Boolean> restarts = new ArrayList<>();
+        Points points = new Points();
         newtonIterations = 0;
+        factorizations = 0;
+        factorsValid = false;
+        refreshJacobian = true;
         int rejectedByError = 0;
         int rejectedByNewton = 0;
 
@@ -140,10 +185,7 @@ final class TransientStepper {
         double t = 0;
         histCount = 0;
         push(t, x);
-        xs.add(x.clone());
-        ts.add(t);
-        orders.add(0);
-        restarts.add(true);
+        points.add(t, x, 0, true);
 
         double[] bps = s.breakPoints().clone();
         Arrays.sort(bps);
@@ -210,11 +252,8 @@ final class TransientStepper {
             // Accept.
             t = tNew;
             lastFailureSingular = false;
-            xs.add(x.clone());
-            ts.add(t);
-            orders.add(m.order());
             boolean restart = onTarget && nextBp < bps.length && target == bps[nextBp];
-            restarts.add(restart);
+            points.add(t, x, m.order(), restart);
             if (restart) {
                 while (nextBp < bps.length && bps[nextBp] <= t) {
                     nextBp++;
@@ -231,17 +270,34 @@ final class TransientStepper {
                 break;
             }
         }
-        int count = ts.size();
-        double[] times = new double[count];
-        int[] ord = new int[count];
-        boolean[] rs = new boolean[count];
-        for (int i = 0; i < count; i++) {
-            times[i] = ts.get(i);
-            ord[i] = orders.get(i);
-            rs[i] = restarts.get(i);
+        int count = points.count;
+        return new Trajectory(Arrays.copyOf(points.times, count), Arrays.copyOf(points.solutions, count),
+                Arrays.copyOf(points.orders, count), Arrays.copyOf(points.restarts, count), stoppedEarly,
+                rejectedByError, rejectedByNewton, newtonIterations, factorizations);
+    }
+
+    /** The accepted points of a run, in arrays that grow by doubling (no boxing per step). */
+    private static final class Points {
+        double[] times = new double[256];
+        double[][] solutions = new double[256][];
+        int[] orders = new int[256];
+        boolean[] restarts = new boolean[256];
+        int count;
+
+        void add(double t, double[] x, int order, boolean restart) {
+            if (count == times.length) {
+                int size = 2 * count;
+                times = Arrays.copyOf(times, size);
+                solutions = Arrays.copyOf(solutions, size);
+                orders = Arrays.copyOf(orders, size);
+                restarts = Arrays.copyOf(restarts, size);
+            }
+            times[count] = t;
+            solutions[count] = x.clone();
+            orders[count] = order;
+            restarts[count] = restart;
+            count++;
         }
-        return new Trajectory(times, xs.toArray(new double[0][]), ord, rs, stoppedEarly,
-                rejectedByError, rejectedByNewton, newtonIterations);
     }
 
     /**
@@ -299,6 +355,14 @@ final class TransientStepper {
     /**
      * Newton's method on f(x, t) + (α0·q(x) + Σ αj·q_{n+1−j}) / h = 0, starting from and
      * updating {@code x}. Returns false when it does not converge or the matrix is singular.
+     *
+     * <p>The iteration matrix G + α0/h·C is factored only when the reuse policy of the class
+     * constants asks for it ({@link #REUSE_COEFFICIENT_CHANGE}, {@link #REUSE_MAX_RATE},
+     * {@link #REUSE_MAX_ITERATIONS}); otherwise the factors of an earlier iterate or step serve
+     * (modified Newton, Hairer and Wanner, Solving ODEs II, §IV.8). Convergence: every update
+     * below {@link #NEWTON_TOLERANCE_FRACTION} of the error tolerance, as in full Newton; with
+     * factors made at an earlier iterate, also a measured contraction rate (ratio of successive
+     * update sizes) small enough that rate × update is below {@link #REUSE_FINAL_REMAINDER}.
      */
     private boolean newton(double[] x, double t, double h, int k, Settings s) {
         Arrays.fill(hist, 0);
@@ -310,62 +374,130 @@ final class TransientStepper {
             }
         }
         double a0h = alpha[0] / h;
+        if (!factorsValid || Math.abs(a0h / factoredCoefficient - 1) > REUSE_COEFFICIENT_CHANGE) {
+            refreshJacobian = true;
+        }
+        int staleIterations = 0;
+        double previous = Double.NaN;
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             newtonIterations++;
-            system.evaluate(x, t, Mode.DYNAMIC, 1, 0, f, g, q, c);
-            for (int i = 0; i < n; i++) {
-                r[i] = -(f[i] + (alpha[0] * q[i] + hist[i]) / h);
-                double[] gi = g[i];
-                double[] ci = c[i];
-                double scale = 0;
-                for (int j = 0; j < n; j++) {
-                    gi[j] += a0h * ci[j];
-                    scale = Math.max(scale, Math.abs(gi[j]));
-                }
-                // Row equilibration: the op-amp state rows (1/h) and the node rows (conductances)
-                // differ by many decades at small steps; the pivot threshold is relative.
-                if (scale > 0 && Double.isFinite(scale)) {
-                    double inv = 1 / scale;
-                    for (int j = 0; j < n; j++) {
-                        gi[j] *= inv;
+            boolean refresh = refreshJacobian;
+            if (!refresh || sparse == null) {
+                system.evaluate(x, t, Mode.DYNAMIC, 1, 0, f, refresh ? g : null, q, refresh ? c : null);
+            }
+            if (refresh && sparse != null) {
+                system.evaluateSparse(x, t, f, gValues, q, cValues);
+                int[] rowStart = pattern.rowStart;
+                for (int i = 0; i < n; i++) {
+                    double scale = 0;
+                    for (int p = rowStart[i]; p < rowStart[i + 1]; p++) {
+                        gValues[p] += a0h * cValues[p];
+                        scale = Math.max(scale, Math.abs(gValues[p]));
                     }
-                    r[i] *= inv;
+                    double inv = scale > 0 && Double.isFinite(scale) ? 1 / scale : 1;
+                    rowScale[i] = inv;
+                    if (inv != 1) {
+                        for (int p = rowStart[i]; p < rowStart[i + 1]; p++) {
+                            gValues[p] *= inv;
+                        }
+                    }
+                }
+            } else if (refresh) {
+                for (int i = 0; i < n; i++) {
+                    double[] gi = g[i];
+                    double[] ci = c[i];
+                    double scale = 0;
+                    for (int j = 0; j < n; j++) {
+                        gi[j] += a0h * ci[j];
+                        scale = Math.max(scale, Math.abs(gi[j]));
+                    }
+                    // Row equilibration: the op-amp state rows (1/h) and the node rows (conductances)
+                    // differ by many decades at small steps; the pivot threshold is relative.
+                    double inv = scale > 0 && Double.isFinite(scale) ? 1 / scale : 1;
+                    rowScale[i] = inv;
+                    if (inv != 1) {
+                        for (int j = 0; j < n; j++) {
+                            gi[j] *= inv;
+                        }
+                    }
                 }
             }
-            try {
-                lu.factor(g, n);
-            } catch (AnalysisException e) {
-                lastFailureSingular = true;
-                return false;
+            if (refresh) {
+                factorizations++;
+                try {
+                    if (sparse != null) {
+                        sparse.factor(pattern, gValues);
+                    } else {
+                        lu.factor(g, n);
+                    }
+                } catch (AnalysisException e) {
+                    factorsValid = false;
+                    lastFailureSingular = true;
+                    return false;
+                }
+                factorsValid = true;
+                factoredCoefficient = a0h;
+                refreshJacobian = false;
+                staleIterations = 0;
+                previous = Double.NaN;
+            } else {
+                staleIterations++;
             }
             lastFailureSingular = false;
+            for (int i = 0; i < n; i++) {
+                r[i] = -(f[i] + (alpha[0] * q[i] + hist[i]) / h) * rowScale[i];
+            }
             lu.solve(r);
             double maxStep = 0;
+            boolean finite = true;
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(r[i])) {
-                    return false;
+                    finite = false;
+                    break;
                 }
                 if (controlled[i]) {
                     maxStep = Math.max(maxStep, Math.abs(r[i]));
                 }
             }
+            if (!finite) {
+                if (refresh) {
+                    refreshJacobian = true;
+                    return false;
+                }
+                refreshJacobian = true; // old factors gave nonsense here: factor at this iterate
+                continue;
+            }
             double damp = it > 0 && maxStep > MAX_VOLTAGE_STEP ? MAX_VOLTAGE_STEP / maxStep : 1;
-            boolean converged = damp == 1;
+            // Size of the update relative to the tolerance (the largest ratio over the unknowns).
+            double ratio = 0;
             for (int i = 0; i < n; i++) {
                 double step = damp * r[i];
                 double next = x[i] + step;
                 double abs = controlled[i] ? s.voltageToleranceVolts() : CURRENT_TOLERANCE_AMPS;
                 double tol = NEWTON_TOLERANCE_FRACTION
                         * (s.relativeTolerance() * Math.max(Math.abs(x[i]), Math.abs(next)) + abs);
-                if (Math.abs(step) > tol) {
-                    converged = false;
-                }
-                x[i] = next;
+                ratio = Math.max(ratio, Math.abs(step) / tol);
             }
-            if (converged) {
+            double rate = previous > 0 && !refresh ? ratio / previous : Double.NaN;
+            if (!refresh && rate >= 1) {
+                // Old factors that no longer contract: drop this update, factor at this iterate.
+                refreshJacobian = true;
+                continue;
+            }
+            for (int i = 0; i < n; i++) {
+                x[i] += damp * r[i];
+            }
+            previous = ratio;
+            // Converged: the update is below the tolerance and, unless the factors were made at
+            // this very iterate, the measured contraction shows they still describe the system.
+            if (damp == 1 && ratio <= 1 && (refresh || rate * ratio <= REUSE_FINAL_REMAINDER)) {
                 return true;
             }
+            if (!refresh && (rate > REUSE_MAX_RATE || staleIterations >= REUSE_MAX_ITERATIONS)) {
+                refreshJacobian = true;
+            }
         }
+        refreshJacobian = true;
         return false;
     }
 
