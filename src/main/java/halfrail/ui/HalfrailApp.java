@@ -23,6 +23,7 @@ public class HalfrailApp extends Application {
     private static volatile Optional<DesignFileActions> fileActions = Optional.empty();
 
     private AnalysisExecutor executor;
+    private AnalysisExecutor studies;
     private WorkbenchModel model;
 
     /** Give the app its design-file support before it starts (null for none). */
@@ -33,7 +34,8 @@ public class HalfrailApp extends Application {
     @Override
     public void start(Stage stage) {
         executor = new BackgroundAnalysisExecutor();
-        model = new WorkbenchModel(executor, SampleDesigns.instrumentBoost(), fileActions);
+        studies = new BackgroundAnalysisExecutor();
+        model = new WorkbenchModel(executor, studies, SampleDesigns.instrumentBoost(), fileActions);
         model.darkProperty().set(systemPrefersDark(System.getenv("GTK_THEME")));
         if (fileActions.isPresent()) {
             model.useRecentFiles(storedRecentFiles());
@@ -70,8 +72,14 @@ public class HalfrailApp extends Application {
 
     @Override
     public void stop() {
+        if (model != null) {
+            model.monteCarlo().shutdown();
+        }
         if (executor != null) {
             executor.shutdown();
+        }
+        if (studies != null) {
+            studies.shutdown();
         }
     }
 

@@ -71,7 +71,10 @@ public final class WorkbenchModel {
     private final ReadingsPanelModel readings = new ReadingsPanelModel();
     private final ChainPanelModel chain = new ChainPanelModel();
     private final HeadroomSweepModel headroom;
+    private final MonteCarloModel monteCarlo;
     private final EditorPanelModel editor;
+    /** The latest Monte Carlo result, whose spread the ladders show while it is of the design shown. */
+    private halfrail.check.MonteCarloResult spreadFrom;
 
     private RecentFiles recent = new RecentFiles(List.of(), l -> { });
     private long generation;
@@ -81,7 +84,25 @@ public final class WorkbenchModel {
     private Design saved;
 
     public WorkbenchModel(AnalysisExecutor executor, Design initial, Optional<DesignFileActions> files) {
+        this(executor, executor, initial, files);
+    }
+
+    /**
+     * @param executor the analyses run after every edit
+     * @param studies  long studies (Monte Carlo), so that they never hold up the analysis of an edit
+     */
+    public WorkbenchModel(AnalysisExecutor executor, AnalysisExecutor studies, Design initial,
+                          Optional<DesignFileActions> files) {
         this.executor = Objects.requireNonNull(executor, "executor");
+        this.monteCarlo = new MonteCarloModel(Objects.requireNonNull(studies, "studies"), design::get);
+        monteCarlo.setOnResult(r -> {
+            spreadFrom = r;
+            DesignReport shown = report.get();
+            if (shown != null) {
+                showLadders(shown);
+            }
+        });
+        monteCarlo.setOpener(d -> openUnsaved(d, "Opened the worst build of the Monte Carlo study as a new design"));
         this.files = Objects.requireNonNull(files, "files");
         this.editor = new EditorPanelModel(this);
         this.headroom = new HeadroomSweepModel(executor);
@@ -144,10 +165,24 @@ public final class WorkbenchModel {
 
     /** Start over on another design (a sample, or a file just read), forgetting the edit history. */
     public void replace(Design d, Path from) {
+        monteCarlo.reset();
+        spreadFrom = null;
         history.clear();
         lastAction = "";
         saved = d;
         file.set(from);
+        trialActive.set(false);
+        show(d);
+    }
+
+    /** Start over on a design that has no file yet (a worst build, a conversion): it opens as unsaved. */
+    public void openUnsaved(Design d, String action) {
+        monteCarlo.reset();
+        spreadFrom = null;
+        history.clear();
+        lastAction = action;
+        saved = null;
+        file.set(null);
         trialActive.set(false);
         show(d);
     }
@@ -167,6 +202,7 @@ public final class WorkbenchModel {
         redoText.set(history.nextRedo().map(e -> "Redo " + e.description()).orElse("Redo"));
         dirty.set(d != saved);
         editor.designChanged(d);
+        monteCarlo.designChanged(d);
         analyse();
         headroom.request(d);
     }
@@ -214,8 +250,7 @@ public final class WorkbenchModel {
     private void accept(DesignReport r) {
         report.set(r);
         analysing.set(false);
-        Supply s = designSupply.get();
-        ladders.show(r, s.highVolts(), s.lowVolts());
+        showLadders(r);
         findings.show(r.findings());
         readings.show(r);
         chain.show(r);
@@ -225,6 +260,16 @@ public final class WorkbenchModel {
         status.set((lastAction.isEmpty() ? "" : lastAction + " · ") + String.format("Analysed%s: %d op-amp%s, %d failing, %d warning%s, %d finding%s in all",
                 where, r.ladders().size(), r.ladders().size() == 1 ? "" : "s", fails, warns,
                 warns == 1 ? "" : "s", r.findings().size(), r.findings().size() == 1 ? "" : "s"));
+    }
+
+    /** The report's ladders, with the Monte Carlo spread when the latest study was of this very design at its own supply. */
+    private void showLadders(DesignReport r) {
+        Supply s = designSupply.get();
+        List<halfrail.check.Ladder> ls = r.ladders();
+        if (spreadFrom != null && !trialActive.get() && spreadFrom.design().equals(design.get())) {
+            ls = spreadFrom.withSpread(ls);
+        }
+        ladders.show(r, ls, s.highVolts(), s.lowVolts());
     }
 
     /**
@@ -419,6 +464,10 @@ public final class WorkbenchModel {
 
     public HeadroomSweepModel headroom() {
         return headroom;
+    }
+
+    public MonteCarloModel monteCarlo() {
+        return monteCarlo;
     }
 
     public ChainPanelModel chain() {

@@ -37,6 +37,7 @@ public final class WorkbenchView extends BorderPane {
     private final SupplyTrialBar trial;
     private final ChainCanvas chain;
     private final HeadroomChart headroomChart;
+    private final MonteCarloPanel monteCarlo;
     private final javafx.scene.control.TabPane bottomTabs;
     private final Label status = new Label();
 
@@ -66,7 +67,10 @@ public final class WorkbenchView extends BorderPane {
         javafx.scene.control.Tab readingsTab = new javafx.scene.control.Tab("Readings", numbers);
         javafx.scene.control.Tab plotTab = new javafx.scene.control.Tab("Headroom against supply", headroomChart);
         plotTab.setId("headroom-tab");
-        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab);
+        monteCarlo = new MonteCarloPanel(model.monteCarlo(), palette);
+        javafx.scene.control.Tab mcTab = new javafx.scene.control.Tab("Monte Carlo", monteCarlo);
+        mcTab.setId("monte-carlo-tab");
+        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, mcTab);
         bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
         SplitPane middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
@@ -170,10 +174,12 @@ public final class WorkbenchView extends BorderPane {
         picture.setOnAction(e -> savePicture(ladders, "ladders.png"));
         MenuItem plot = new MenuItem("Save a picture of the headroom plot…");
         plot.setOnAction(e -> savePicture(headroomChart, "headroom.png"));
+        MenuItem mcPicture = new MenuItem("Save a picture of the Monte Carlo histograms…");
+        mcPicture.setOnAction(e -> savePicture(monteCarlo, "monte-carlo.png"));
         MenuItem window = new MenuItem("Save a picture of the window…");
         window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
         design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), csv,
-                picture, plot, window, new SeparatorMenuItem(), quit);
+                picture, plot, mcPicture, window, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");
         MenuItem undo = new MenuItem();
@@ -306,6 +312,10 @@ public final class WorkbenchView extends BorderPane {
     /** The tabs under the ladders: the readings and the plots. */
     public javafx.scene.control.TabPane bottomTabs() {
         return bottomTabs;
+    }
+
+    public MonteCarloPanel monteCarlo() {
+        return monteCarlo;
     }
 
     public ChainCanvas chain() {
