@@ -31,4 +31,13 @@ class MainTest {
         assertTrue(loaded.isEmpty(), () -> "JavaFX classes were loaded: " + loaded.subList(0, Math.min(5, loaded.size())));
         assertFalse(out.contains("halfrail.ui."), "no UI class is loaded");
     }
+
+    @Test
+    void oneExistingDesignFileAloneOpensTheAppAndEverythingElseIsACommand() {
+        assertTrue(Main.opensADesign(new String[] {"samples/usb-line-driver.json"}));
+        assertFalse(Main.opensADesign(new String[] {"check", "samples/usb-line-driver.json"}));
+        assertFalse(Main.opensADesign(new String[] {"samples/nine-volt-boost.cir"}));
+        assertFalse(Main.opensADesign(new String[] {"samples/no-such-design.json"}));
+        assertFalse(Main.opensADesign(new String[] {"--help"}));
+    }
 }

@@ -17,6 +17,7 @@ import halfrail.parts.LeakageLevel;
 import halfrail.parts.PartsLibrary;
 import halfrail.solve.AcAnalysis;
 import halfrail.solve.AcPassband;
+import halfrail.solve.AcSweep;
 import halfrail.solve.AnalysisException;
 import halfrail.solve.DcSensitivity;
 import halfrail.solve.DcSolver;
@@ -65,6 +66,8 @@ public final class DesignAnalysis {
     static final double RESPONSE_RANGE_FACTOR = 1000;
     /** The power-on transient runs at most this many times the settle-time limit, s. */
     static final double POWER_ON_RUN_FACTOR = 5;
+    /** The plotted response curves run from this factor below the band to this factor above. */
+    static final double PLOT_RANGE_FACTOR = 100;
 
     private DesignAnalysis() {}
 
@@ -283,7 +286,31 @@ public final class DesignAnalysis {
                 ripple = rippleGain * supply.rippleVoltsPeak();
             }
             return new ChainReport(bandLow, bandHigh, pb.peakMagnitude(), pb.peakHz(), pb.lowerCornerHz(),
-                    pb.upperCornerHz(), ripple, rippleGain, referenceNoise());
+                    pb.upperCornerHz(), ripple, rippleGain, referenceNoise(), responses(ac));
+        }
+
+        /** The gain from the source to each signal stage's output and to the load, for plots. */
+        private List<ResponseCurve> responses(AcAnalysis ac) {
+            double lo = design.source().bandLowHz() / PLOT_RANGE_FACTOR;
+            double hi = design.source().bandHighHz() * PLOT_RANGE_FACTOR;
+            int points = (int) Math.ceil(Math.log10(hi / lo) * ResponseCurve.POINTS_PER_DECADE) + 1;
+            List<ResponseCurve> curves = new ArrayList<>();
+            for (StageNodes sn : nominal.opAmps()) {
+                if (sn.signal()) {
+                    curves.add(curve(ac, sn.label(), sn.out(), false, lo, hi, points));
+                }
+            }
+            curves.add(curve(ac, ResponseCurve.LOAD_LABEL, nominal.loadNode(), true, lo, hi, points));
+            return curves;
+        }
+
+        private ResponseCurve curve(AcAnalysis ac, String label, String node, boolean atLoad, double lo, double hi,
+                                    int points) {
+            AcSweep sw = ac.sweep(nominal.signalSource(), node, lo, hi, points);
+            OptionalDouble corner = ac.lowerCornerHz(nominal.signalSource(), node,
+                    design.source().bandLowHz() / RESPONSE_RANGE_FACTOR,
+                    design.source().bandHighHz() * RESPONSE_RANGE_FACTOR);
+            return new ResponseCurve(label, node, atLoad, sw.frequenciesHz(), sw.magnitudeDb(), corner);
         }
 
         /**
@@ -368,7 +395,32 @@ public final class DesignAnalysis {
             double step = r.loadStep(nominal.loadNode()).map(PowerOnResult.LoadStep::peakDeviationVolts).orElse(0.0);
             OptionalDouble settle = r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty());
             double[] times = r.timesSeconds();
-            return new PowerOnReport(r.settled(), settle, band, times[times.length - 1], pinned, step);
+            return new PowerOnReport(r.settled(), settle, band, times[times.length - 1], pinned, step,
+                    Optional.of(trace(r)));
+        }
+
+        /** Every op-amp output and the load, sampled at evenly spaced times over the run. */
+        private PowerOnTrace trace(PowerOnResult r) {
+            double[] accepted = r.timesSeconds();
+            double end = accepted[accepted.length - 1];
+            int n = Math.min(PowerOnTrace.MAX_SAMPLES, Math.max(2, accepted.length));
+            double[] t = new double[n];
+            for (int i = 0; i < n; i++) {
+                t[i] = i == n - 1 ? end : end * i / (n - 1);
+            }
+            Map<String, double[]> outputs = new LinkedHashMap<>();
+            for (StageNodes sn : nominal.opAmps()) {
+                outputs.put(sn.label(), sample(r, sn.out(), t));
+            }
+            return new PowerOnTrace(t, outputs, sample(r, nominal.loadNode(), t));
+        }
+
+        private static double[] sample(PowerOnResult r, String node, double[] t) {
+            double[] v = new double[t.length];
+            for (int i = 0; i < t.length; i++) {
+                v[i] = r.voltageAt(node, t[i]);
+            }
+            return v;
         }
 
         private OperatingPoint solve(DesignCircuit dc, double[] guess) {

@@ -95,7 +95,7 @@ public final class ConvertCommand implements Callable<Integer> {
     @Option(names = "--usb", description = "New supply: a USB port.")
     boolean usb;
 
-    @Option(names = "--rail", paramLabel = "V[:TOL]", description = "New supply: a fixed rail, tolerance as a fraction or % (12:5%).")
+    @Option(names = "--rail", paramLabel = "V[:TOL]", description = "New supply: a fixed rail, tolerance as a fraction or %% (12:5%%).")
     String rail;
 
     @Option(names = "--band", paramLabel = "LOW:HIGH", description = "Band of interest, Hz (20:20k).")

@@ -14,7 +14,7 @@ import java.util.concurrent.Callable;
  */
 @Command(name = "halfrail", mixinStandardHelpOptions = true, versionProvider = HalfrailCommand.Version.class,
         description = "Checks op-amp stages that run from one supply rail.",
-        subcommands = {CheckCommand.class, NetlistCommand.class, ConvertCommand.class})
+        subcommands = {CheckCommand.class, NetlistCommand.class, ConvertCommand.class, ReportCommand.class})
 public final class HalfrailCommand implements Callable<Integer> {
     /** The program version. */
     public static final String VERSION = "0.1.0-SNAPSHOT";

@@ -10,8 +10,8 @@ import java.util.Objects;
 import java.util.Optional;
 
 /**
- * The desktop application: one main window on the built-in sample design, analysed in the
- * background. Started through {@link AppLauncher#launch(String[])} so that the launcher class
+ * The desktop application: one main window on the built-in sample design (or on the design
+ * file given as the only argument), analysed in the background. Started through {@link AppLauncher#launch(String[])} so that the launcher class
  * needs no JavaFX on its own class path.
  */
 public class HalfrailApp extends Application {
@@ -49,6 +49,10 @@ public class HalfrailApp extends Application {
             }
         });
         stage.show();
+        List<String> raw = getParameters().getRaw();
+        if (raw.size() == 1 && fileActions.isPresent()) {
+            model.open(java.nio.file.Path.of(raw.get(0)));
+        }
     }
 
     /** Preferences key of the recent-files list (one path a line). */
