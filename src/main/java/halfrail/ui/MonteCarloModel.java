@@ -229,6 +229,30 @@ public final class MonteCarloModel {
         stopRunning();
     }
 
+    /** The latest result's histograms as CSV: one line per op-amp, quantity and bin (edges in V or dB, count). */
+    public String csv() {
+        MonteCarloResult r = result.get();
+        StringBuilder b = new StringBuilder("op_amp,quantity,bin_low,bin_high,builds\n");
+        if (r == null) {
+            return b.toString();
+        }
+        for (halfrail.check.StageDistribution s : r.opAmps()) {
+            row(b, s.label(), "rest_point_volts", s.quiescentVolts());
+            if (s.signal()) {
+                row(b, s.label(), "headroom_db", s.headroomDb());
+            }
+        }
+        return b.toString();
+    }
+
+    private static void row(StringBuilder b, String opAmp, String quantity, halfrail.check.Histogram h) {
+        long[] counts = h.counts();
+        for (int i = 0; i < counts.length; i++) {
+            b.append(String.format(Locale.ROOT, "%s,%s,%.6g,%.6g,%d%n", opAmp.replaceAll("[^A-Za-z0-9_.-]+", "_"), quantity,
+                    h.lowEdge() + h.binWidth() * i, h.lowEdge() + h.binWidth() * (i + 1), counts[i]));
+        }
+    }
+
     public ReadOnlyObjectProperty<State> stateProperty() {
         return state.getReadOnlyProperty();
     }

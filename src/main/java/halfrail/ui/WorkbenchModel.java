@@ -72,6 +72,8 @@ public final class WorkbenchModel {
     private final ChainPanelModel chain = new ChainPanelModel();
     private final HeadroomSweepModel headroom;
     private final MonteCarloModel monteCarlo;
+    private final DividerTradeoffModel tradeoff;
+    private final ReportPlotsModel plots = new ReportPlotsModel();
     private final EditorPanelModel editor;
     /** The latest Monte Carlo result, whose spread the ladders show while it is of the design shown. */
     private halfrail.check.MonteCarloResult spreadFrom;
@@ -95,6 +97,7 @@ public final class WorkbenchModel {
                           Optional<DesignFileActions> files) {
         this.executor = Objects.requireNonNull(executor, "executor");
         this.monteCarlo = new MonteCarloModel(Objects.requireNonNull(studies, "studies"), design::get);
+        this.tradeoff = new DividerTradeoffModel(studies);
         monteCarlo.setOnResult(r -> {
             spreadFrom = r;
             DesignReport shown = report.get();
@@ -203,6 +206,7 @@ public final class WorkbenchModel {
         dirty.set(d != saved);
         editor.designChanged(d);
         monteCarlo.designChanged(d);
+        tradeoff.designChanged(d);
         analyse();
         headroom.request(d);
     }
@@ -251,6 +255,7 @@ public final class WorkbenchModel {
         report.set(r);
         analysing.set(false);
         showLadders(r);
+        plots.show(r);
         findings.show(r.findings());
         readings.show(r);
         chain.show(r);
@@ -284,6 +289,7 @@ public final class WorkbenchModel {
         Finding f = new Finding(NOT_ANALYSED, Severity.FAIL, "the design could not be analysed: " + e.getMessage(),
                 parts, "correct the value named here", Optional.empty(), Optional.empty());
         ladders.clear();
+        plots.clear();
         chain.clear();
         findings.show(List.of(f));
         readings.clear();
@@ -464,6 +470,14 @@ public final class WorkbenchModel {
 
     public HeadroomSweepModel headroom() {
         return headroom;
+    }
+
+    public DividerTradeoffModel tradeoff() {
+        return tradeoff;
+    }
+
+    public ReportPlotsModel plots() {
+        return plots;
     }
 
     public MonteCarloModel monteCarlo() {

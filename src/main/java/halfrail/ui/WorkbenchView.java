@@ -38,6 +38,9 @@ public final class WorkbenchView extends BorderPane {
     private final ChainCanvas chain;
     private final HeadroomChart headroomChart;
     private final MonteCarloPanel monteCarlo;
+    private final DividerTradeoffChart tradeoffChart;
+    private final PowerOnChart powerOnChart;
+    private final ResponseChart responseChart;
     private final javafx.scene.control.TabPane bottomTabs;
     private final Label status = new Label();
 
@@ -70,7 +73,17 @@ public final class WorkbenchView extends BorderPane {
         monteCarlo = new MonteCarloPanel(model.monteCarlo(), palette);
         javafx.scene.control.Tab mcTab = new javafx.scene.control.Tab("Monte Carlo", monteCarlo);
         mcTab.setId("monte-carlo-tab");
-        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, mcTab);
+        powerOnChart = new PowerOnChart(model.plots());
+        javafx.scene.control.Tab powerTab = new javafx.scene.control.Tab("Power-on", powerOnChart);
+        powerTab.setId("power-on-tab");
+        responseChart = new ResponseChart(model.plots());
+        javafx.scene.control.Tab responseTab = new javafx.scene.control.Tab("Low-frequency response", responseChart);
+        responseTab.setId("response-tab");
+        tradeoffChart = new DividerTradeoffChart(model.tradeoff());
+        javafx.scene.control.Tab tradeTab = new javafx.scene.control.Tab("Battery trade-off", tradeoffChart);
+        tradeTab.setId("tradeoff-tab");
+        model.tradeoff().wantedProperty().bind(tradeTab.selectedProperty());
+        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab);
         bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
         SplitPane middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
@@ -176,10 +189,28 @@ public final class WorkbenchView extends BorderPane {
         plot.setOnAction(e -> savePicture(headroomChart, "headroom.png"));
         MenuItem mcPicture = new MenuItem("Save a picture of the Monte Carlo histograms…");
         mcPicture.setOnAction(e -> savePicture(monteCarlo, "monte-carlo.png"));
+        MenuItem powerPicture = new MenuItem("Save a picture of the power-on plot…");
+        powerPicture.setOnAction(e -> savePicture(powerOnChart, "power-on.png"));
+        MenuItem responsePicture = new MenuItem("Save a picture of the response plot…");
+        responsePicture.setOnAction(e -> savePicture(responseChart, "response.png"));
+        MenuItem tradePicture = new MenuItem("Save a picture of the battery trade-off…");
+        tradePicture.setOnAction(e -> savePicture(tradeoffChart, "battery-tradeoff.png"));
+        MenuItem powerCsv = new MenuItem("Export the power-on trace as CSV…");
+        powerCsv.setOnAction(e -> exportCsv("the power-on trace", "power-on.csv", () -> model.plots().powerOnCsv()));
+        MenuItem responseCsv = new MenuItem("Export the response curves as CSV…");
+        responseCsv.setOnAction(e -> exportCsv("the response curves", "response.csv", () -> model.plots().responseCsv()));
+        MenuItem tradeCsv = new MenuItem("Export the battery trade-off as CSV…");
+        tradeCsv.setOnAction(e -> exportCsv("the battery trade-off", "battery-tradeoff.csv", () -> model.tradeoff().csv()));
+        MenuItem mcCsv = new MenuItem("Export the Monte Carlo histograms as CSV…");
+        mcCsv.setOnAction(e -> exportCsv("the Monte Carlo histograms", "monte-carlo.csv", () -> model.monteCarlo().csv()));
         MenuItem window = new MenuItem("Save a picture of the window…");
         window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
-        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), csv,
-                picture, plot, mcPicture, window, new SeparatorMenuItem(), quit);
+        Menu tables = new Menu("Export a table as CSV");
+        tables.getItems().addAll(csv, powerCsv, responseCsv, tradeCsv, mcCsv);
+        Menu pictures = new Menu("Save a picture (PNG)");
+        pictures.getItems().addAll(picture, plot, powerPicture, responsePicture, tradePicture, mcPicture, window);
+        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), tables,
+                pictures, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");
         MenuItem undo = new MenuItem();
@@ -261,6 +292,18 @@ public final class WorkbenchView extends BorderPane {
         }
     }
 
+    private void exportCsv(String what, String name, Supplier<String> text) {
+        FileChooser c = new FileChooser();
+        c.setTitle("Export " + what);
+        c.setInitialFileName(name);
+        c.getExtensionFilters().add(new FileChooser.ExtensionFilter("CSV", "*.csv"));
+        File f = c.showSaveDialog(window());
+        if (f != null) {
+            String body = text.get();
+            model.export(what, f.toPath(), p -> java.nio.file.Files.writeString(p, body, java.nio.charset.StandardCharsets.UTF_8));
+        }
+    }
+
     private void savePicture(javafx.scene.Node node, String name) {
         FileChooser c = new FileChooser();
         c.setTitle("Save a picture");
@@ -312,6 +355,18 @@ public final class WorkbenchView extends BorderPane {
     /** The tabs under the ladders: the readings and the plots. */
     public javafx.scene.control.TabPane bottomTabs() {
         return bottomTabs;
+    }
+
+    public DividerTradeoffChart tradeoffChart() {
+        return tradeoffChart;
+    }
+
+    public PowerOnChart powerOnChart() {
+        return powerOnChart;
+    }
+
+    public ResponseChart responseChart() {
+        return responseChart;
     }
 
     public MonteCarloPanel monteCarlo() {
