@@ -36,10 +36,15 @@ public final class DividerTradeoffChart extends VBox {
         Label what = new Label("Bias divider trade-off (Ra = Rb over E12, 1 kΩ to 1 MΩ): a stiffer divider costs battery current; "
                 + "a softer one lets bias currents move the rest points and slows the reference at switch-on. ◆ this design.");
         what.getStyleClass().add("panel-title");
-        what.setWrapText(true);
-        shift = chart("rest-point shift by bias currents, mV", new NumberAxis());
+        for (Label l : new Label[] {what, caption}) {
+            l.setWrapText(true);
+            l.setMaxWidth(Double.MAX_VALUE);
+            l.setMinHeight(javafx.scene.layout.Region.USE_PREF_SIZE);
+        }
+        shift = chart("rest-point shift, mV", new NumberAxis());
         ((NumberAxis) shift.getYAxis()).setForceZeroInRange(true);
         timing = chart("reference time, s", DecadeAxis.of("reference time", "s"));
+        timing.setHorizontalZeroLineVisible(false);
         runtime = chart("battery runtime, h", new NumberAxis());
         HBox charts = new HBox(4, shift, timing, runtime);
         for (LineChart<Number, Number> c : new LineChart[] {shift, timing, runtime}) {
@@ -53,7 +58,7 @@ public final class DividerTradeoffChart extends VBox {
 
     private static LineChart<Number, Number> chart(String yLabel, NumberAxis y) {
         y.setLabel(yLabel);
-        LineChart<Number, Number> c = new LineChart<>(DecadeAxis.of("current through the divider", "A"), y);
+        LineChart<Number, Number> c = new LineChart<>(DecadeAxis.of("divider current", "A"), y);
         c.setAnimated(false);
         c.setLegendVisible(true);
         c.setCreateSymbols(true);
@@ -121,13 +126,12 @@ public final class DividerTradeoffChart extends VBox {
             return;
         }
         chart.getData().add(s);
-        int index = chart.getData().size() - 1;
         if (!mine.getData().isEmpty()) {
             mine.setName("");
             chart.getData().add(mine);
             mine.getData().forEach(d -> {
                 d.getNode().getStyleClass().add("chosen-mark");
-                d.getNode().setStyle("-fx-background-color: CHART_COLOR_" + (index % HeadroomChart.CHART_COLOURS + 1) + ", white;");
+                d.getNode().setStyle("-fx-background-color: #2b2d31, #ffd84d;");
             });
         }
         chart.applyCss();

@@ -90,7 +90,7 @@ public final class HistogramCanvas extends Region {
             return;
         }
         geometry = new HistogramGeometry(c.histogram(), w, h, c.marker());
-        g.setFont(Font.font("System", FontWeight.BOLD, 11));
+        g.setFont(Font.font("System", FontWeight.BOLD, 10.5));
         g.setFill(p.ink());
         g.setTextAlign(TextAlignment.LEFT);
         g.setTextBaseline(VPos.TOP);

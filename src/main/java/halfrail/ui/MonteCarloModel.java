@@ -152,9 +152,7 @@ public final class MonteCarloModel {
         result.set(r);
         stale.set(!r.design().equals(designSource.get()));
         state.set(State.DONE);
-        message.set(String.format(Locale.ROOT, "%,d builds: %.1f %% pass every check%s.", r.builds(),
-                100 * r.yield(), r.failedToConverge() == 0 ? ""
-                        : String.format(Locale.ROOT, ", %,d could not be solved", r.failedToConverge())));
+        message.set(String.format(Locale.ROOT, "Finished %,d builds of \"%s\".", r.builds(), r.design().name()));
         onResult.accept(r);
     }
 

@@ -101,7 +101,7 @@ public final class MonteCarloPanel extends VBox {
         stop.setOnAction(e -> model.cancel());
         ProgressBar bar = new ProgressBar(0);
         bar.setId("mc-progress");
-        bar.setPrefWidth(220);
+        bar.setPrefWidth(160);
         bar.progressProperty().bind(Bindings.createDoubleBinding(
                 () -> model.totalProperty().get() == 0 ? 0 : (double) model.doneProperty().get() / model.totalProperty().get(),
                 model.doneProperty(), model.totalProperty()));
@@ -114,10 +114,16 @@ public final class MonteCarloPanel extends VBox {
         var running = Bindings.equal(model.stateProperty(), MonteCarloModel.State.RUNNING);
         stop.disableProperty().bind(running.not());
         bar.visibleProperty().bind(model.totalProperty().greaterThan(0));
-        Label what = new Label("Monte Carlo over part tolerances at the nominal supply:");
+        Label what = new Label("Monte Carlo at the nominal supply:");
         what.getStyleClass().add("panel-title");
-        HBox controls = new HBox(8, what, builds, resistors, run, stop, bar, count);
+        HBox controls = new HBox(8, what, builds, resistors, run, stop);
         controls.setAlignment(Pos.CENTER_LEFT);
+        for (javafx.scene.Node n : controls.getChildren()) {
+            if (n instanceof javafx.scene.layout.Region r && n != bar) {
+                r.setMinWidth(javafx.scene.layout.Region.USE_PREF_SIZE);
+            }
+        }
+        bar.setMinWidth(80);
 
         Label message = new Label();
         message.setId("mc-message");
@@ -134,6 +140,7 @@ public final class MonteCarloPanel extends VBox {
         summary.setId("mc-summary");
         summary.setWrapText(true);
         worst.setId("mc-worst");
+        worst.setMinWidth(javafx.scene.layout.Region.USE_PREF_SIZE);
         worst.setOnAction(e -> model.openWorstBuild());
         worst.setTooltip(new Tooltip("Opens the build closest to failing (or furthest past it) with its part values written into the fields, as a new unsaved design."));
         HBox summaryLine = new HBox(10, summary, worst);
@@ -144,7 +151,16 @@ public final class MonteCarloPanel extends VBox {
         scroll.setFitToWidth(true);
         VBox.setVgrow(scroll, Priority.ALWAYS);
         rows.setPadding(new Insets(2));
-        getChildren().addAll(controls, new HBox(10, message, staleNote), assumptions, summaryLine, scroll);
+        HBox progress = new HBox(8, bar, count, message, staleNote);
+        progress.setAlignment(Pos.CENTER_LEFT);
+        for (Label l : new Label[] {assumptions, summary, message, staleNote}) {
+            l.setMaxWidth(Double.MAX_VALUE);
+            l.setMinWidth(0);
+        }
+        summary.setMinHeight(javafx.scene.layout.Region.USE_PREF_SIZE);
+        assumptions.setMinHeight(javafx.scene.layout.Region.USE_PREF_SIZE);
+        setMinWidth(0);
+        getChildren().addAll(controls, progress, assumptions, summaryLine, scroll);
         model.resultProperty().addListener((o, was, now) -> show(now));
         palette.addListener((o, was, now) -> canvases.forEach(c -> c.paletteProperty().set(now)));
         show(model.resultProperty().get());
@@ -185,7 +201,8 @@ public final class MonteCarloPanel extends VBox {
             if (s.signal()) {
                 String excluded = s.headroomDb().excluded() == 0 ? ""
                         : String.format(Locale.ROOT, " — %,d with no room left out", s.headroomDb().excluded());
-                HistogramCanvas h = canvas(new HistogramCanvas.Content("Headroom at the nominal signal" + excluded, "dB",
+                HistogramCanvas h = canvas(new HistogramCanvas.Content(String.format(Locale.ROOT,
+                        "Headroom at the nominal signal, limit %.1f dB", limit) + excluded, "dB",
                         s.headroomDb(), OptionalDouble.of(limit), String.format(Locale.ROOT, "limit %.1f dB", limit)));
                 row.getChildren().add(h);
                 HBox.setHgrow(h, Priority.ALWAYS);

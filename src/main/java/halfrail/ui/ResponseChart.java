@@ -19,7 +19,8 @@ public final class ResponseChart extends LineChart<Number, Number> {
         setId("response-chart");
         setAnimated(false);
         setCreateSymbols(false);
-        setTitle("Gain from the source against frequency (log scale); dashed: the band's lowest frequency");
+        setTitle("Gain from the source; dashed: where the band starts");
+        setVerticalZeroLineVisible(false);
         model.chainProperty().addListener((o, was, now) -> redraw(now));
         redraw(model.chainProperty().get());
     }

@@ -42,6 +42,7 @@ public final class WorkbenchView extends BorderPane {
     private final PowerOnChart powerOnChart;
     private final ResponseChart responseChart;
     private final javafx.scene.control.TabPane bottomTabs;
+    private final SplitPane middle;
     private final Label status = new Label();
 
     public WorkbenchView(WorkbenchModel model) {
@@ -85,7 +86,7 @@ public final class WorkbenchView extends BorderPane {
         model.tradeoff().wantedProperty().bind(tradeTab.selectedProperty());
         bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab);
         bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
-        SplitPane middle = new SplitPane(centre, bottomTabs);
+        middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
         middle.setDividerPositions(0.68);
         SplitPane main = new SplitPane(editor, middle, findings);
@@ -350,6 +351,11 @@ public final class WorkbenchView extends BorderPane {
 
     public HeadroomChart headroomChart() {
         return headroomChart;
+    }
+
+    /** The split between the ladders (top) and the tabs of readings and plots (bottom). */
+    public SplitPane middleSplit() {
+        return middle;
     }
 
     /** The tabs under the ladders: the readings and the plots. */
