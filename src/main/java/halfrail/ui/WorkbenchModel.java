@@ -74,6 +74,7 @@ public final class WorkbenchModel {
     private final MonteCarloModel monteCarlo;
     private final DividerTradeoffModel tradeoff;
     private final ReportPlotsModel plots = new ReportPlotsModel();
+    private final ConversionModel conversion;
     private final EditorPanelModel editor;
     /** The latest Monte Carlo result, whose spread the ladders show while it is of the design shown. */
     private halfrail.check.MonteCarloResult spreadFrom;
@@ -98,6 +99,8 @@ public final class WorkbenchModel {
         this.executor = Objects.requireNonNull(executor, "executor");
         this.monteCarlo = new MonteCarloModel(Objects.requireNonNull(studies, "studies"), design::get);
         this.tradeoff = new DividerTradeoffModel(studies);
+        this.conversion = new ConversionModel(studies);
+        conversion.setOpener(r -> openUnsaved(r.design(), "Opened the conversion of the dual-rail stage as a new design"));
         monteCarlo.setOnResult(r -> {
             spreadFrom = r;
             DesignReport shown = report.get();
@@ -474,6 +477,10 @@ public final class WorkbenchModel {
 
     public DividerTradeoffModel tradeoff() {
         return tradeoff;
+    }
+
+    public ConversionModel conversion() {
+        return conversion;
     }
 
     public ReportPlotsModel plots() {

@@ -229,7 +229,12 @@ public final class WorkbenchView extends BorderPane {
         MenuItem add = new MenuItem("Add a stage");
         add.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+N"));
         add.setOnAction(e -> model.editor().addStage());
-        edit.getItems().addAll(undo, redo, new SeparatorMenuItem(), add);
+        MenuItem convert = new MenuItem("Move a dual-rail stage to one supply…");
+        convert.setId("convert");
+        convert.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+K"));
+        convert.setOnAction(e -> ConversionDialog.show(model.conversion(), window(),
+                getScene() == null ? java.util.List.of() : getScene().getStylesheets()));
+        edit.getItems().addAll(undo, redo, new SeparatorMenuItem(), add, new SeparatorMenuItem(), convert);
         Menu look = new Menu("View");
         javafx.scene.control.CheckMenuItem darkItem = new javafx.scene.control.CheckMenuItem("Dark appearance");
         darkItem.setId("dark");
