@@ -57,6 +57,10 @@ public final class WorkbenchModel {
     private final ReadOnlyStringWrapper redoText = new ReadOnlyStringWrapper(this, "redoText", "Redo");
     private final ReadOnlyBooleanWrapper dirty = new ReadOnlyBooleanWrapper(this, "dirty");
     private final ObjectProperty<Path> file = new SimpleObjectProperty<>(this, "file");
+    /** The reason the latest save failed (the view shows it in a dialog); set anew on every failure. */
+    private final ObjectProperty<String> saveFailure = new SimpleObjectProperty<>(this, "saveFailure");
+    /** The reason the latest open failed. */
+    private final ObjectProperty<String> openFailure = new SimpleObjectProperty<>(this, "openFailure");
 
     private final BooleanProperty dark = new SimpleBooleanProperty(this, "dark");
     private final BooleanProperty trialActive = new SimpleBooleanProperty(this, "trialActive");
@@ -80,6 +84,7 @@ public final class WorkbenchModel {
     private halfrail.check.MonteCarloResult spreadFrom;
 
     private RecentFiles recent = new RecentFiles(List.of(), l -> { });
+    private Optional<RecoveryStore> recovery = Optional.empty();
     private long generation;
     /** The user's latest action, in words, put before the analysis summary in the status line. */
     private String lastAction = "";
@@ -146,6 +151,11 @@ public final class WorkbenchModel {
         lastAction = "Edited " + description;
         show(after);
         return Optional.empty();
+    }
+
+    /** Put a message in the status line. */
+    public void tellUser(String message) {
+        status.set(message);
     }
 
     /** Put a message of the editor's in the status line (a refused choice, for example). */
@@ -323,6 +333,36 @@ public final class WorkbenchModel {
         return files.isPresent();
     }
 
+    /** Keep unsaved work in {@code store} (see {@link #autosave()}). */
+    public void useRecovery(RecoveryStore store) {
+        this.recovery = Optional.of(store);
+    }
+
+    /**
+     * Write the design to the recovery file in the background when it has unsaved edits (called
+     * every {@link RecoveryStore#AUTOSAVE_SECONDS} s by the app); a failure is told in the status line.
+     */
+    public void autosave() {
+        if (recovery.isEmpty() || !dirty.get()) {
+            return;
+        }
+        RecoveryStore store = recovery.get();
+        Design d = design.get();
+        executor.submit(() -> store.save(d), written -> { },
+                e -> status.set("Could not keep a recovery copy: " + e.getMessage()));
+    }
+
+    /** The app closes normally: the recovery file is no longer needed. */
+    public void closing() {
+        recovery.ifPresent(r -> {
+            try {
+                r.clear();
+            } catch (java.io.IOException e) {
+                // nothing to tell at exit; a stale recovery file is offered, and can be declined, at the next start
+            }
+        });
+    }
+
     /** Use {@code r} to remember the files opened and saved. */
     public void useRecentFiles(RecentFiles r) {
         this.recent = Objects.requireNonNull(r);
@@ -344,7 +384,11 @@ public final class WorkbenchModel {
             replace(d, path);
             recent.add(path);
             status.set("Opened " + path.getFileName());
-        }, e -> status.set("Could not open " + path.getFileName() + ": " + e.getMessage()));
+        }, e -> {
+            String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+            status.set("Could not open " + path.getFileName() + " (the file is left as it is): " + why);
+            openFailure.set(why);
+        });
     }
 
     /** Write the design to {@code path} in the background. */
@@ -360,7 +404,14 @@ public final class WorkbenchModel {
             recent.add(path);
             dirty.set(design.get() != saved);
             status.set("Saved " + path.getFileName());
-        }, e -> status.set("Could not save " + path.getFileName() + ": " + e.getMessage()));
+            if (!dirty.get()) {
+                closing();
+            }
+        }, e -> {
+            String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+            status.set("Could not save " + path.getFileName() + " (the design stays open, unsaved): " + why);
+            saveFailure.set(why);
+        });
     }
 
     /** Something written to a file off the FX thread. */
@@ -424,6 +475,16 @@ public final class WorkbenchModel {
 
     public ReadOnlyBooleanProperty dirtyProperty() {
         return dirty.getReadOnlyProperty();
+    }
+
+    /** Why the latest save failed; null before any failure. The view resets it after telling the user. */
+    public ObjectProperty<String> saveFailureProperty() {
+        return saveFailure;
+    }
+
+    /** Why the latest open failed; null before any failure. */
+    public ObjectProperty<String> openFailureProperty() {
+        return openFailure;
     }
 
     public ObjectProperty<Path> fileProperty() {

@@ -94,9 +94,31 @@ public final class WorkbenchView extends BorderPane {
         SplitPane.setResizableWithParent(editor, false);
         editor.setMinWidth(280);
         findings.setMinWidth(300);
+        model.saveFailureProperty().addListener((o, was, now) -> {
+            if (now != null) {
+                warn("The design was not saved", now + "\n\nThe design stays open with its edits; save it somewhere else.");
+                model.saveFailureProperty().set(null);
+            }
+        });
+        model.openFailureProperty().addListener((o, was, now) -> {
+            if (now != null) {
+                warn("The file could not be opened", now + "\n\nThe file has not been changed.");
+                model.openFailureProperty().set(null);
+            }
+        });
         setTop(menus());
         setCenter(main);
         setBottom(statusLine());
+    }
+
+    private void warn(String header, String text) {
+        if (getScene() == null || getScene().getWindow() == null || !getScene().getWindow().isShowing()) {
+            return;
+        }
+        Alert a = new Alert(Alert.AlertType.ERROR, text, ButtonType.OK);
+        a.setHeaderText(header);
+        a.initOwner(getScene().getWindow());
+        a.show();
     }
 
     private void appearance(String darkSheet, boolean dark) {
