@@ -131,7 +131,7 @@ public final class DividerTradeoffChart extends VBox {
             chart.getData().add(mine);
             mine.getData().forEach(d -> {
                 d.getNode().getStyleClass().add("chosen-mark");
-                d.getNode().setStyle("-fx-background-color: #2b2d31, #ffd84d;");
+                d.getNode().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: #2b2d31, #ffd84d;");
             });
         }
         chart.applyCss();

@@ -27,8 +27,11 @@ public final class HeadroomChart extends LineChart<Number, Number> {
         redraw();
     }
 
-    /** Colours JavaFX's default stylesheet cycles through for chart series (CHART_COLOR_1 to 8). */
-    static final int CHART_COLOURS = 8;
+    /** The curves' colours in the order halfrail.css gives them (default-color0 to 3). */
+    static final String[] CURVE_COLOURS = {"#3b3f9e", "#138a7e", "#8a4f7d", "#b8860b"};
+    /** A diamond mark, larger than a curve's points. */
+    static final String MARK_STYLE = "-fx-shape: \"M5,0 L10,5 L5,10 L0,5 Z\"; -fx-background-radius: 0; -fx-padding: 7px; "
+            + "-fx-background-insets: 0, 2.5; ";
 
     /** Leave the lowest-supply marks (unnamed series) out of the legend. */
     @Override
@@ -65,14 +68,14 @@ public final class HeadroomChart extends LineChart<Number, Number> {
         int index = 0;
         for (HeadroomSweepModel.Curve c : model.curves()) {
             // the mark sits on the limit line at the lowest passing supply, in its curve's colour (no legend entry of its own)
-            String colour = "CHART_COLOR_" + (index++ % CHART_COLOURS + 1);
+            String colour = CURVE_COLOURS[index++ % CURVE_COLOURS.length];
             c.markVolts().ifPresent(v -> {
                 XYChart.Series<Number, Number> mark = new XYChart.Series<>();
                 mark.getData().add(new XYChart.Data<>(v, model.limitDbProperty().get()));
                 getData().add(mark);
                 mark.getData().forEach(d -> {
                     d.getNode().getStyleClass().add("lowest-supply-mark");
-                    d.getNode().setStyle("-fx-background-color: " + colour + ", white;");
+                    d.getNode().setStyle(MARK_STYLE + "-fx-background-color: " + colour + ", white;");
                 });
             });
         }
