@@ -37,13 +37,15 @@ import java.util.function.Supplier;
  * <p>The study is handed to the injected {@link AnalysisExecutor} as one job; inside it the builds
  * run on a fork-join pool of {@link #buildWorkers()} threads made for the run, one fewer than the
  * processors so that the FX thread keeps a core. Progress comes from the worker threads; at most
- * one progress update is waiting on the executor's callback thread at any time, so a fast study
- * never floods the FX thread. Cancelling sets the study's {@link CancelToken}; the study then
+ * one progress update is waiting on the executor's callback thread at any time, and at most one is
+ * handed over per {@link #PROGRESS_INTERVAL_MS}, so a fast study never floods the FX thread. Cancelling sets the study's {@link CancelToken}; the study then
  * ends with {@link StudyCancelledException} and the panel says after how many builds it stopped.
  */
 public final class MonteCarloModel {
     /** Build counts the panel offers. */
     public static final int[] BUILD_CHOICES = {1_000, 10_000, 100_000};
+    /** Least time between two progress updates handed to the callback thread, ms. */
+    public static final long PROGRESS_INTERVAL_MS = 100;
     /** Resistor tolerances the panel offers, fractions. */
     public static final double[] RESISTOR_TOLERANCE_CHOICES = {0.01, 0.02, 0.05};
 
@@ -110,6 +112,7 @@ public final class MonteCarloModel {
         token = mineToken;
         AtomicLong latest = new AtomicLong();
         AtomicBoolean posted = new AtomicBoolean();
+        AtomicLong lastPost = new AtomicLong(System.nanoTime() - PROGRESS_INTERVAL_MS * 1_000_000);
         done.set(0);
         total.set(Math.max(0, n));
         state.set(State.RUNNING);
@@ -122,7 +125,10 @@ public final class MonteCarloModel {
             try {
                 return MonteCarlo.run(model, options, pool, (finished, of) -> {
                     latest.accumulateAndGet(finished, Math::max);
-                    if (!posted.getAndSet(true)) {
+                    long now = System.nanoTime();
+                    long last = lastPost.get();
+                    if (now - last >= PROGRESS_INTERVAL_MS * 1_000_000 && lastPost.compareAndSet(last, now)
+                            && !posted.getAndSet(true)) {
                         executor.post(() -> {
                             posted.set(false);
                             if (mine == generation && state.get() == State.RUNNING) {
@@ -153,7 +159,13 @@ public final class MonteCarloModel {
         stale.set(!r.design().equals(designSource.get()));
         state.set(State.DONE);
         message.set(String.format(Locale.ROOT, "Finished %,d builds of \"%s\".", r.builds(), r.design().name()));
-        onResult.accept(r);
+        // the ladders' spread is drawn in a later turn of the callback thread, so that the panel and the
+        // ladders are not both laid out and painted in one go
+        executor.post(() -> {
+            if (result.get() == r) {
+                onResult.accept(r);
+            }
+        });
     }
 
     private void stopped(Throwable e) {

@@ -19,13 +19,17 @@ import java.util.stream.Stream;
  * read from the kernel's per-thread scheduler statistics ({@code /proc/self/task/<tid>/schedstat},
  * second field: time spent waiting on a run queue, ns; Linux kernel documentation, "scheduler
  * statistics") and subtracted, so that the result is the time the FX thread was busy or blocked
- * in this program, not the load of the machine. Without those statistics nothing is subtracted.
+ * in this program, not the load of the machine; so is the render thread's wait for a processor (the
+ * FX thread waits for the renderer at every pulse), the larger of the two, as they may overlap.
+ * Without those statistics nothing is subtracted.
  * The collector's stop-the-world pauses (which halt every thread alike, and on a machine short of
  * processors stretch well past their usual length) are subtracted too.
  */
 final class FxThreadProbe implements AutoCloseable {
     /** The kernel's short name of the FX thread (thread names are cut to 15 characters). */
     static final String FX_THREAD_COMM = "JavaFX Applicat";
+    /** The kernel's short name of the render thread, which the FX thread waits for at each pulse. */
+    static final String RENDER_THREAD_COMM = "QuantumRenderer";
 
     private final ScheduledExecutorService probe = Executors.newSingleThreadScheduledExecutor(r -> {
         Thread t = new Thread(r, "fx-probe");
@@ -33,19 +37,24 @@ final class FxThreadProbe implements AutoCloseable {
         return t;
     });
     private final Optional<Path> schedstat;
+    private final Optional<Path> renderSchedstat;
     private final AtomicLong largestHeldUpNanos = new AtomicLong();
     private final AtomicLong largestLatencyNanos = new AtomicLong();
     private final AtomicLong pulses = new AtomicLong();
 
     FxThreadProbe(long periodMs) {
-        schedstat = findFxSchedstat();
+        schedstat = findSchedstat(FX_THREAD_COMM);
+        renderSchedstat = findSchedstat(RENDER_THREAD_COMM);
         probe.scheduleAtFixedRate(() -> {
             long posted = System.nanoTime();
-            long waitAtPost = runQueueWaitNanos();
+            long waitAtPost = runQueueWaitNanos(schedstat);
+            long renderWaitAtPost = runQueueWaitNanos(renderSchedstat);
             long gcAtPost = gcPauseMillis();
             Platform.runLater(() -> {
                 long latency = System.nanoTime() - posted;
-                long waited = Math.max(0, runQueueWaitNanos() - waitAtPost)
+                // the larger of the two threads' waits for a processor (they may overlap, so not their sum)
+                long waited = Math.max(Math.max(0, runQueueWaitNanos(schedstat) - waitAtPost),
+                        Math.max(0, runQueueWaitNanos(renderSchedstat) - renderWaitAtPost))
                         + TimeUnit.MILLISECONDS.toNanos(Math.max(0, gcPauseMillis() - gcAtPost));
                 largestLatencyNanos.accumulateAndGet(latency, Math::max);
                 largestHeldUpNanos.accumulateAndGet(Math.max(0, latency - waited), Math::max);
@@ -54,11 +63,11 @@ final class FxThreadProbe implements AutoCloseable {
         }, 0, periodMs, TimeUnit.MILLISECONDS);
     }
 
-    private static Optional<Path> findFxSchedstat() {
+    private static Optional<Path> findSchedstat(String comm) {
         try (Stream<Path> tasks = Files.list(Path.of("/proc/self/task"))) {
             return tasks.filter(t -> {
                 try {
-                    return Files.readString(t.resolve("comm")).trim().equals(FX_THREAD_COMM);
+                    return Files.readString(t.resolve("comm")).trim().equals(comm);
                 } catch (IOException e) {
                     return false;
                 }
@@ -81,12 +90,12 @@ final class FxThreadProbe implements AutoCloseable {
         return sum;
     }
 
-    private long runQueueWaitNanos() {
-        if (schedstat.isEmpty()) {
+    private static long runQueueWaitNanos(Optional<Path> stat) {
+        if (stat.isEmpty()) {
             return 0;
         }
         try {
-            String[] f = Files.readString(schedstat.get()).trim().split("\\s+");
+            String[] f = Files.readString(stat.get()).trim().split("\\s+");
             return Long.parseLong(f[1]);
         } catch (IOException | RuntimeException e) {
             return 0;
