@@ -23,6 +23,15 @@ public interface AnalysisExecutor {
      */
     <T> Job submit(Callable<T> work, Consumer<T> onResult, Consumer<Throwable> onFailure);
 
+    /**
+     * Hand a short update (a study's progress, say) from any thread to the thread the callbacks
+     * run on: the FX thread for the background executor, at once for the synchronous one.
+     * {@code update} must be quick; it runs whether or not a job is cancelled.
+     */
+    default void post(Runnable update) {
+        update.run();
+    }
+
     /** Stop accepting work and let the worker end. */
     void shutdown();
 

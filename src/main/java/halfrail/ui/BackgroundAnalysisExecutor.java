@@ -50,6 +50,11 @@ public final class BackgroundAnalysisExecutor implements AnalysisExecutor {
     }
 
     @Override
+    public void post(Runnable update) {
+        Platform.runLater(update);
+    }
+
+    @Override
     public void shutdown() {
         worker.shutdownNow();
     }

@@ -23,6 +23,7 @@ public class HalfrailApp extends Application {
     private static volatile Optional<DesignFileActions> fileActions = Optional.empty();
 
     private AnalysisExecutor executor;
+    private AnalysisExecutor studies;
     private WorkbenchModel model;
 
     /** Give the app its design-file support before it starts (null for none). */
@@ -33,10 +34,15 @@ public class HalfrailApp extends Application {
     @Override
     public void start(Stage stage) {
         executor = new BackgroundAnalysisExecutor();
-        model = new WorkbenchModel(executor, SampleDesigns.instrumentBoost(), fileActions);
+        studies = new BackgroundAnalysisExecutor();
+        model = new WorkbenchModel(executor, studies, SampleDesigns.instrumentBoost(), fileActions);
         model.darkProperty().set(systemPrefersDark(System.getenv("GTK_THEME")));
+        RecoveryStore recovery = null;
         if (fileActions.isPresent()) {
             model.useRecentFiles(storedRecentFiles());
+            recovery = new RecoveryStore(RecoveryStore.defaultFolder(System.getenv(), System.getProperty("user.home")),
+                    fileActions.get());
+            model.useRecovery(recovery);
         }
         WorkbenchView view = new WorkbenchView(model);
         stage.setTitle("Halfrail — single-supply stage checker");
@@ -50,6 +56,40 @@ public class HalfrailApp extends Application {
         List<String> raw = getParameters().getRaw();
         if (raw.size() == 1 && fileActions.isPresent()) {
             model.open(java.nio.file.Path.of(raw.get(0)));
+        }
+        if (recovery != null) {
+            offerRecovery(recovery);
+            autosave = new javafx.animation.Timeline(new javafx.animation.KeyFrame(
+                    javafx.util.Duration.seconds(RecoveryStore.AUTOSAVE_SECONDS), e -> model.autosave()));
+            autosave.setCycleCount(javafx.animation.Animation.INDEFINITE);
+            autosave.play();
+        }
+    }
+
+    private javafx.animation.Timeline autosave;
+
+    /** A recovery file from a session that did not close normally: offer to restore it. */
+    private void offerRecovery(RecoveryStore recovery) {
+        java.util.Optional<Design> left;
+        try {
+            left = recovery.pending();
+        } catch (java.io.IOException e) {
+            model.tellUser("A recovery file was found but could not be read (" + e.getMessage() + "); it is left at "
+                    + recovery.file());
+            return;
+        }
+        if (left.isEmpty()) {
+            return;
+        }
+        javafx.scene.control.Alert ask = new javafx.scene.control.Alert(javafx.scene.control.Alert.AlertType.CONFIRMATION,
+                "Halfrail did not close normally last time. Unsaved work on \"" + left.get().name()
+                        + "\" was kept. Restore it as an unsaved design?",
+                javafx.scene.control.ButtonType.YES, javafx.scene.control.ButtonType.NO);
+        ask.setHeaderText("Restore unsaved work?");
+        if (ask.showAndWait().filter(javafx.scene.control.ButtonType.YES::equals).isPresent()) {
+            model.openUnsaved(left.get(), "Restored the unsaved work of the last session");
+        } else {
+            model.closing();
         }
     }
 
@@ -74,8 +114,18 @@ public class HalfrailApp extends Application {
 
     @Override
     public void stop() {
+        if (autosave != null) {
+            autosave.stop();
+        }
+        if (model != null) {
+            model.monteCarlo().shutdown();
+            model.closing();
+        }
         if (executor != null) {
             executor.shutdown();
+        }
+        if (studies != null) {
+            studies.shutdown();
         }
     }
 

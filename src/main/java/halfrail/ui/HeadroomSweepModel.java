@@ -1,11 +1,11 @@
 package halfrail.ui;
 
-import halfrail.check.DesignAnalysis;
-import halfrail.check.DesignReport;
-import halfrail.check.StageReport;
+import halfrail.check.LowestPassingSupply;
+import halfrail.check.StageSupplySweep;
+import halfrail.check.SupplySweep;
+import halfrail.check.SupplySweepOptions;
+import halfrail.check.SupplySweepResult;
 import halfrail.design.Design;
-import halfrail.design.FixedRail;
-import halfrail.design.Supply;
 import javafx.beans.property.ReadOnlyBooleanProperty;
 import javafx.beans.property.ReadOnlyBooleanWrapper;
 import javafx.beans.property.ReadOnlyDoubleProperty;
@@ -14,28 +14,50 @@ import javafx.collections.FXCollections;
 import javafx.collections.ObservableList;
 
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
+import java.util.Locale;
+import java.util.OptionalDouble;
 
 /**
  * The view-model of the headroom plot: each signal op-amp's headroom at the nominal signal
- * against the supply voltage, from the battery's end-point to fresh. Each point is one ordinary
- * analysis of the design on a fixed rail at that voltage (power-on transient left out), run
- * through the executor like every other analysis; a newer request drops an older one's result.
- * When the check layer offers its own supply sweep, {@link #sweep} is the one place to call it.
+ * against the supply voltage, from the battery's end-point to fresh, with the lowest supply at
+ * which it still passes. The numbers come from the check layer's {@link SupplySweep} (one
+ * operating point per supply voltage, the lowest passing supply refined by bisection), run through
+ * the executor like every other analysis; a newer request drops an older one's result.
  */
 public final class HeadroomSweepModel {
-    /** Supply voltages analysed from end-point to fresh, both included. */
-    public static final int SWEEP_POINTS = 9;
+    /** Supply voltages swept from end-point to fresh, both included. */
+    public static final int SWEEP_POINTS = 61;
 
     /** One point of a curve. @param volts supply, V @param headroomDb headroom, dB */
     public record Point(double volts, double headroomDb) {}
 
-    /** One op-amp's headroom curve; points where it has none (no signal, stuck on a rail) are left out. */
-    public record Curve(String opAmp, List<Point> points) {
+    /**
+     * One op-amp's headroom curve; points where it has none (stuck on a rail) are left out.
+     *
+     * @param lowest the lowest supply at which it still passes (the sweep's verdict, the voltage, and
+     *               for a battery the capacity left there)
+     */
+    public record Curve(String opAmp, List<Point> points, LowestPassingSupply lowest) {
         public Curve {
             points = List.copyOf(points);
+        }
+
+        /** Where the plot marks the lowest passing supply: on the limit line at that voltage, when it falls inside the sweep. */
+        public OptionalDouble markVolts() {
+            return lowest.verdict() == LowestPassingSupply.Verdict.FAILS_BELOW ? lowest.volts() : OptionalDouble.empty();
+        }
+
+        /** The lowest passing supply in words, for the legend. */
+        public String lowestInWords() {
+            return switch (lowest.verdict()) {
+                case PASSES_THROUGHOUT -> "passes over the whole range";
+                case FAILS_AT_TOP -> "fails even at the top of the range";
+                case FAILS_BELOW -> String.format(Locale.ROOT, "passes down to %.2f V%s", lowest.volts().getAsDouble(),
+                        lowest.capacityLeftPercent().isPresent()
+                                ? String.format(Locale.ROOT, " (%.0f %% of the charge left)", lowest.capacityLeftPercent().getAsDouble())
+                                : "");
+            };
         }
     }
 
@@ -78,29 +100,23 @@ public final class HeadroomSweepModel {
 
     /** The sweep itself (runs on the executor's thread). */
     static List<Curve> sweep(Design d) {
-        Supply s = d.supply();
-        double low = s.lowVolts();
-        double high = s.highVolts();
-        Map<String, List<Point>> byOpAmp = new LinkedHashMap<>();
-        for (int i = 0; i < SWEEP_POINTS; i++) {
-            if (Thread.currentThread().isInterrupted()) {
-                break;
-            }
-            double v = low + (high - low) * i / (SWEEP_POINTS - 1);
-            Design at = d.withSupply(new FixedRail(v, 0, s.rippleVoltsPeak(), s.rippleHz(), s.internalOhms()));
-            DesignReport r = DesignAnalysis.analyse(at, false);
-            for (StageReport st : r.stages()) {
-                if (!st.signal()) {
-                    continue;
-                }
-                List<Point> pts = byOpAmp.computeIfAbsent(st.label(), k -> new ArrayList<>());
-                if (!st.nominal().saturated() && st.nominal().headroomDb().isPresent()) {
-                    pts.add(new Point(v, st.nominal().headroomDb().getAsDouble()));
-                }
-            }
-        }
+        SupplySweepResult r = SupplySweep.run(d, SupplySweepOptions.defaults().withPoints(SWEEP_POINTS));
+        double[] volts = r.supplyVolts();
         List<Curve> out = new ArrayList<>();
-        byOpAmp.forEach((k, v) -> out.add(new Curve(k, v)));
+        for (StageSupplySweep st : r.opAmps()) {
+            if (!st.signal()) {
+                continue;
+            }
+            double[] h = st.headroomDb();
+            boolean[] sat = st.saturated();
+            List<Point> pts = new ArrayList<>();
+            for (int i = 0; i < volts.length; i++) {
+                if (!sat[i] && Double.isFinite(h[i])) {
+                    pts.add(new Point(volts[i], h[i]));
+                }
+            }
+            out.add(new Curve(st.label(), pts, st.lowest()));
+        }
         return out;
     }
 

@@ -54,13 +54,18 @@ public final class LadderPanelModel {
     private BiConsumer<String, LadderLevel> levelPicker = (a, b) -> { };
 
     void show(DesignReport report, double highestSupplyVolts, double endPointSupplyVolts) {
+        show(report, report.ladders(), highestSupplyVolts, endPointSupplyVolts);
+    }
+
+    /** Show {@code ladders} (the report's, possibly with a tolerance spread filled in) with the report's findings. */
+    void show(DesignReport report, List<Ladder> ladders, double highestSupplyVolts, double endPointSupplyVolts) {
         double top = highestSupplyVolts;
-        for (Ladder l : report.ladders()) {
+        for (Ladder l : ladders) {
             top = Math.max(top, l.supplyVolts());
         }
         top *= 1 + SCALE_MARGIN;
         List<Rung> list = new ArrayList<>();
-        for (Ladder l : report.ladders()) {
+        for (Ladder l : ladders) {
             Optional<Severity> worst = report.findings().stream()
                     .filter(f -> f.opAmp().filter(l.opAmp()::equals).isPresent())
                     .map(Finding::severity).min(Comparator.naturalOrder());

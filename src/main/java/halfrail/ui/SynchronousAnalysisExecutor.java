@@ -9,6 +9,7 @@ import java.util.function.Consumer;
  */
 public final class SynchronousAnalysisExecutor implements AnalysisExecutor {
     private int jobsRun;
+    private final Thread owner = Thread.currentThread();
 
     @Override
     public <T> Job submit(Callable<T> work, Consumer<T> onResult, Consumer<Throwable> onFailure) {
@@ -22,6 +23,19 @@ public final class SynchronousAnalysisExecutor implements AnalysisExecutor {
         }
         onResult.accept(result);
         return DoneJob.INSTANCE;
+    }
+
+    /**
+     * Run {@code update} at once when called on the thread that made this executor; drop it when
+     * called from another thread (a study's worker): every job has finished before {@link #submit}
+     * returns, so its final callback shows the final state anyway, and the updater may touch
+     * properties that only the owning thread (the FX thread, in a window) may change.
+     */
+    @Override
+    public void post(Runnable update) {
+        if (Thread.currentThread() == owner) {
+            update.run();
+        }
     }
 
     /** How many jobs this executor has run. */

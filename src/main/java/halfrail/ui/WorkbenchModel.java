@@ -57,6 +57,10 @@ public final class WorkbenchModel {
     private final ReadOnlyStringWrapper redoText = new ReadOnlyStringWrapper(this, "redoText", "Redo");
     private final ReadOnlyBooleanWrapper dirty = new ReadOnlyBooleanWrapper(this, "dirty");
     private final ObjectProperty<Path> file = new SimpleObjectProperty<>(this, "file");
+    /** The reason the latest save failed (the view shows it in a dialog); set anew on every failure. */
+    private final ObjectProperty<String> saveFailure = new SimpleObjectProperty<>(this, "saveFailure");
+    /** The reason the latest open failed. */
+    private final ObjectProperty<String> openFailure = new SimpleObjectProperty<>(this, "openFailure");
 
     private final BooleanProperty dark = new SimpleBooleanProperty(this, "dark");
     private final BooleanProperty trialActive = new SimpleBooleanProperty(this, "trialActive");
@@ -71,9 +75,16 @@ public final class WorkbenchModel {
     private final ReadingsPanelModel readings = new ReadingsPanelModel();
     private final ChainPanelModel chain = new ChainPanelModel();
     private final HeadroomSweepModel headroom;
+    private final MonteCarloModel monteCarlo;
+    private final DividerTradeoffModel tradeoff;
+    private final ReportPlotsModel plots = new ReportPlotsModel();
+    private final ConversionModel conversion;
     private final EditorPanelModel editor;
+    /** The latest Monte Carlo result, whose spread the ladders show while it is of the design shown. */
+    private halfrail.check.MonteCarloResult spreadFrom;
 
     private RecentFiles recent = new RecentFiles(List.of(), l -> { });
+    private Optional<RecoveryStore> recovery = Optional.empty();
     private long generation;
     /** The user's latest action, in words, put before the analysis summary in the status line. */
     private String lastAction = "";
@@ -81,7 +92,28 @@ public final class WorkbenchModel {
     private Design saved;
 
     public WorkbenchModel(AnalysisExecutor executor, Design initial, Optional<DesignFileActions> files) {
+        this(executor, executor, initial, files);
+    }
+
+    /**
+     * @param executor the analyses run after every edit
+     * @param studies  long studies (Monte Carlo), so that they never hold up the analysis of an edit
+     */
+    public WorkbenchModel(AnalysisExecutor executor, AnalysisExecutor studies, Design initial,
+                          Optional<DesignFileActions> files) {
         this.executor = Objects.requireNonNull(executor, "executor");
+        this.monteCarlo = new MonteCarloModel(Objects.requireNonNull(studies, "studies"), design::get);
+        this.tradeoff = new DividerTradeoffModel(studies);
+        this.conversion = new ConversionModel(studies);
+        conversion.setOpener(r -> openUnsaved(r.design(), "Opened the conversion of the dual-rail stage as a new design"));
+        monteCarlo.setOnResult(r -> {
+            spreadFrom = r;
+            DesignReport shown = report.get();
+            if (shown != null) {
+                showLadders(shown);
+            }
+        });
+        monteCarlo.setOpener(d -> openUnsaved(d, "Opened the worst build of the Monte Carlo study as a new design"));
         this.files = Objects.requireNonNull(files, "files");
         this.editor = new EditorPanelModel(this);
         this.headroom = new HeadroomSweepModel(executor);
@@ -121,6 +153,11 @@ public final class WorkbenchModel {
         return Optional.empty();
     }
 
+    /** Put a message in the status line. */
+    public void tellUser(String message) {
+        status.set(message);
+    }
+
     /** Put a message of the editor's in the status line (a refused choice, for example). */
     void tell(String message) {
         status.set(message);
@@ -144,10 +181,24 @@ public final class WorkbenchModel {
 
     /** Start over on another design (a sample, or a file just read), forgetting the edit history. */
     public void replace(Design d, Path from) {
+        monteCarlo.reset();
+        spreadFrom = null;
         history.clear();
         lastAction = "";
         saved = d;
         file.set(from);
+        trialActive.set(false);
+        show(d);
+    }
+
+    /** Start over on a design that has no file yet (a worst build, a conversion): it opens as unsaved. */
+    public void openUnsaved(Design d, String action) {
+        monteCarlo.reset();
+        spreadFrom = null;
+        history.clear();
+        lastAction = action;
+        saved = null;
+        file.set(null);
         trialActive.set(false);
         show(d);
     }
@@ -167,6 +218,8 @@ public final class WorkbenchModel {
         redoText.set(history.nextRedo().map(e -> "Redo " + e.description()).orElse("Redo"));
         dirty.set(d != saved);
         editor.designChanged(d);
+        monteCarlo.designChanged(d);
+        tradeoff.designChanged(d);
         analyse();
         headroom.request(d);
     }
@@ -214,8 +267,8 @@ public final class WorkbenchModel {
     private void accept(DesignReport r) {
         report.set(r);
         analysing.set(false);
-        Supply s = designSupply.get();
-        ladders.show(r, s.highVolts(), s.lowVolts());
+        showLadders(r);
+        plots.show(r);
         findings.show(r.findings());
         readings.show(r);
         chain.show(r);
@@ -225,6 +278,16 @@ public final class WorkbenchModel {
         status.set((lastAction.isEmpty() ? "" : lastAction + " · ") + String.format("Analysed%s: %d op-amp%s, %d failing, %d warning%s, %d finding%s in all",
                 where, r.ladders().size(), r.ladders().size() == 1 ? "" : "s", fails, warns,
                 warns == 1 ? "" : "s", r.findings().size(), r.findings().size() == 1 ? "" : "s"));
+    }
+
+    /** The report's ladders, with the Monte Carlo spread when the latest study was of this very design at its own supply. */
+    private void showLadders(DesignReport r) {
+        Supply s = designSupply.get();
+        List<halfrail.check.Ladder> ls = r.ladders();
+        if (spreadFrom != null && !trialActive.get() && spreadFrom.design().equals(design.get())) {
+            ls = spreadFrom.withSpread(ls);
+        }
+        ladders.show(r, ls, s.highVolts(), s.lowVolts());
     }
 
     /**
@@ -239,6 +302,7 @@ public final class WorkbenchModel {
         Finding f = new Finding(NOT_ANALYSED, Severity.FAIL, "the design could not be analysed: " + e.getMessage(),
                 parts, "correct the value named here", Optional.empty(), Optional.empty());
         ladders.clear();
+        plots.clear();
         chain.clear();
         findings.show(List.of(f));
         readings.clear();
@@ -269,6 +333,36 @@ public final class WorkbenchModel {
         return files.isPresent();
     }
 
+    /** Keep unsaved work in {@code store} (see {@link #autosave()}). */
+    public void useRecovery(RecoveryStore store) {
+        this.recovery = Optional.of(store);
+    }
+
+    /**
+     * Write the design to the recovery file in the background when it has unsaved edits (called
+     * every {@link RecoveryStore#AUTOSAVE_SECONDS} s by the app); a failure is told in the status line.
+     */
+    public void autosave() {
+        if (recovery.isEmpty() || !dirty.get()) {
+            return;
+        }
+        RecoveryStore store = recovery.get();
+        Design d = design.get();
+        executor.submit(() -> store.save(d), written -> { },
+                e -> status.set("Could not keep a recovery copy: " + e.getMessage()));
+    }
+
+    /** The app closes normally: the recovery file is no longer needed. */
+    public void closing() {
+        recovery.ifPresent(r -> {
+            try {
+                r.clear();
+            } catch (java.io.IOException e) {
+                // nothing to tell at exit; a stale recovery file is offered, and can be declined, at the next start
+            }
+        });
+    }
+
     /** Use {@code r} to remember the files opened and saved. */
     public void useRecentFiles(RecentFiles r) {
         this.recent = Objects.requireNonNull(r);
@@ -290,7 +384,11 @@ public final class WorkbenchModel {
             replace(d, path);
             recent.add(path);
             status.set("Opened " + path.getFileName());
-        }, e -> status.set("Could not open " + path.getFileName() + ": " + e.getMessage()));
+        }, e -> {
+            String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+            status.set("Could not open " + path.getFileName() + " (the file is left as it is): " + why);
+            openFailure.set(why);
+        });
     }
 
     /** Write the design to {@code path} in the background. */
@@ -306,7 +404,14 @@ public final class WorkbenchModel {
             recent.add(path);
             dirty.set(design.get() != saved);
             status.set("Saved " + path.getFileName());
-        }, e -> status.set("Could not save " + path.getFileName() + ": " + e.getMessage()));
+            if (!dirty.get()) {
+                closing();
+            }
+        }, e -> {
+            String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+            status.set("Could not save " + path.getFileName() + " (the design stays open, unsaved): " + why);
+            saveFailure.set(why);
+        });
     }
 
     /** Something written to a file off the FX thread. */
@@ -372,6 +477,16 @@ public final class WorkbenchModel {
         return dirty.getReadOnlyProperty();
     }
 
+    /** Why the latest save failed; null before any failure. The view resets it after telling the user. */
+    public ObjectProperty<String> saveFailureProperty() {
+        return saveFailure;
+    }
+
+    /** Why the latest open failed; null before any failure. */
+    public ObjectProperty<String> openFailureProperty() {
+        return openFailure;
+    }
+
     public ObjectProperty<Path> fileProperty() {
         return file;
     }
@@ -419,6 +534,22 @@ public final class WorkbenchModel {
 
     public HeadroomSweepModel headroom() {
         return headroom;
+    }
+
+    public DividerTradeoffModel tradeoff() {
+        return tradeoff;
+    }
+
+    public ConversionModel conversion() {
+        return conversion;
+    }
+
+    public ReportPlotsModel plots() {
+        return plots;
+    }
+
+    public MonteCarloModel monteCarlo() {
+        return monteCarlo;
     }
 
     public ChainPanelModel chain() {

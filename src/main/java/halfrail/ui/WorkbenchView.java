@@ -37,7 +37,12 @@ public final class WorkbenchView extends BorderPane {
     private final SupplyTrialBar trial;
     private final ChainCanvas chain;
     private final HeadroomChart headroomChart;
+    private final MonteCarloPanel monteCarlo;
+    private final DividerTradeoffChart tradeoffChart;
+    private final PowerOnChart powerOnChart;
+    private final ResponseChart responseChart;
     private final javafx.scene.control.TabPane bottomTabs;
+    private final SplitPane middle;
     private final Label status = new Label();
 
     public WorkbenchView(WorkbenchModel model) {
@@ -66,9 +71,22 @@ public final class WorkbenchView extends BorderPane {
         javafx.scene.control.Tab readingsTab = new javafx.scene.control.Tab("Readings", numbers);
         javafx.scene.control.Tab plotTab = new javafx.scene.control.Tab("Headroom against supply", headroomChart);
         plotTab.setId("headroom-tab");
-        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab);
+        monteCarlo = new MonteCarloPanel(model.monteCarlo(), palette);
+        javafx.scene.control.Tab mcTab = new javafx.scene.control.Tab("Monte Carlo", monteCarlo);
+        mcTab.setId("monte-carlo-tab");
+        powerOnChart = new PowerOnChart(model.plots());
+        javafx.scene.control.Tab powerTab = new javafx.scene.control.Tab("Power-on", powerOnChart);
+        powerTab.setId("power-on-tab");
+        responseChart = new ResponseChart(model.plots());
+        javafx.scene.control.Tab responseTab = new javafx.scene.control.Tab("Low-frequency response", responseChart);
+        responseTab.setId("response-tab");
+        tradeoffChart = new DividerTradeoffChart(model.tradeoff());
+        javafx.scene.control.Tab tradeTab = new javafx.scene.control.Tab("Battery trade-off", tradeoffChart);
+        tradeTab.setId("tradeoff-tab");
+        model.tradeoff().wantedProperty().bind(tradeTab.selectedProperty());
+        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab);
         bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
-        SplitPane middle = new SplitPane(centre, bottomTabs);
+        middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
         middle.setDividerPositions(0.68);
         SplitPane main = new SplitPane(editor, middle, findings);
@@ -76,9 +94,31 @@ public final class WorkbenchView extends BorderPane {
         SplitPane.setResizableWithParent(editor, false);
         editor.setMinWidth(280);
         findings.setMinWidth(300);
+        model.saveFailureProperty().addListener((o, was, now) -> {
+            if (now != null) {
+                warn("The design was not saved", now + "\n\nThe design stays open with its edits; save it somewhere else.");
+                model.saveFailureProperty().set(null);
+            }
+        });
+        model.openFailureProperty().addListener((o, was, now) -> {
+            if (now != null) {
+                warn("The file could not be opened", now + "\n\nThe file has not been changed.");
+                model.openFailureProperty().set(null);
+            }
+        });
         setTop(menus());
         setCenter(main);
         setBottom(statusLine());
+    }
+
+    private void warn(String header, String text) {
+        if (getScene() == null || getScene().getWindow() == null || !getScene().getWindow().isShowing()) {
+            return;
+        }
+        Alert a = new Alert(Alert.AlertType.ERROR, text, ButtonType.OK);
+        a.setHeaderText(header);
+        a.initOwner(getScene().getWindow());
+        a.show();
     }
 
     private void appearance(String darkSheet, boolean dark) {
@@ -170,10 +210,30 @@ public final class WorkbenchView extends BorderPane {
         picture.setOnAction(e -> savePicture(ladders, "ladders.png"));
         MenuItem plot = new MenuItem("Save a picture of the headroom plot…");
         plot.setOnAction(e -> savePicture(headroomChart, "headroom.png"));
+        MenuItem mcPicture = new MenuItem("Save a picture of the Monte Carlo histograms…");
+        mcPicture.setOnAction(e -> savePicture(monteCarlo, "monte-carlo.png"));
+        MenuItem powerPicture = new MenuItem("Save a picture of the power-on plot…");
+        powerPicture.setOnAction(e -> savePicture(powerOnChart, "power-on.png"));
+        MenuItem responsePicture = new MenuItem("Save a picture of the response plot…");
+        responsePicture.setOnAction(e -> savePicture(responseChart, "response.png"));
+        MenuItem tradePicture = new MenuItem("Save a picture of the battery trade-off…");
+        tradePicture.setOnAction(e -> savePicture(tradeoffChart, "battery-tradeoff.png"));
+        MenuItem powerCsv = new MenuItem("Export the power-on trace as CSV…");
+        powerCsv.setOnAction(e -> exportCsv("the power-on trace", "power-on.csv", () -> model.plots().powerOnCsv()));
+        MenuItem responseCsv = new MenuItem("Export the response curves as CSV…");
+        responseCsv.setOnAction(e -> exportCsv("the response curves", "response.csv", () -> model.plots().responseCsv()));
+        MenuItem tradeCsv = new MenuItem("Export the battery trade-off as CSV…");
+        tradeCsv.setOnAction(e -> exportCsv("the battery trade-off", "battery-tradeoff.csv", () -> model.tradeoff().csv()));
+        MenuItem mcCsv = new MenuItem("Export the Monte Carlo histograms as CSV…");
+        mcCsv.setOnAction(e -> exportCsv("the Monte Carlo histograms", "monte-carlo.csv", () -> model.monteCarlo().csv()));
         MenuItem window = new MenuItem("Save a picture of the window…");
         window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
-        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), csv,
-                picture, plot, window, new SeparatorMenuItem(), quit);
+        Menu tables = new Menu("Export a table as CSV");
+        tables.getItems().addAll(csv, powerCsv, responseCsv, tradeCsv, mcCsv);
+        Menu pictures = new Menu("Save a picture (PNG)");
+        pictures.getItems().addAll(picture, plot, powerPicture, responsePicture, tradePicture, mcPicture, window);
+        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), tables,
+                pictures, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");
         MenuItem undo = new MenuItem();
@@ -191,7 +251,12 @@ public final class WorkbenchView extends BorderPane {
         MenuItem add = new MenuItem("Add a stage");
         add.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+N"));
         add.setOnAction(e -> model.editor().addStage());
-        edit.getItems().addAll(undo, redo, new SeparatorMenuItem(), add);
+        MenuItem convert = new MenuItem("Move a dual-rail stage to one supply…");
+        convert.setId("convert");
+        convert.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+K"));
+        convert.setOnAction(e -> ConversionDialog.show(model.conversion(), window(),
+                getScene() == null ? java.util.List.of() : getScene().getStylesheets()));
+        edit.getItems().addAll(undo, redo, new SeparatorMenuItem(), add, new SeparatorMenuItem(), convert);
         Menu look = new Menu("View");
         javafx.scene.control.CheckMenuItem darkItem = new javafx.scene.control.CheckMenuItem("Dark appearance");
         darkItem.setId("dark");
@@ -255,6 +320,18 @@ public final class WorkbenchView extends BorderPane {
         }
     }
 
+    private void exportCsv(String what, String name, Supplier<String> text) {
+        FileChooser c = new FileChooser();
+        c.setTitle("Export " + what);
+        c.setInitialFileName(name);
+        c.getExtensionFilters().add(new FileChooser.ExtensionFilter("CSV", "*.csv"));
+        File f = c.showSaveDialog(window());
+        if (f != null) {
+            String body = text.get();
+            model.export(what, f.toPath(), p -> java.nio.file.Files.writeString(p, body, java.nio.charset.StandardCharsets.UTF_8));
+        }
+    }
+
     private void savePicture(javafx.scene.Node node, String name) {
         FileChooser c = new FileChooser();
         c.setTitle("Save a picture");
@@ -303,9 +380,30 @@ public final class WorkbenchView extends BorderPane {
         return headroomChart;
     }
 
+    /** The split between the ladders (top) and the tabs of readings and plots (bottom). */
+    public SplitPane middleSplit() {
+        return middle;
+    }
+
     /** The tabs under the ladders: the readings and the plots. */
     public javafx.scene.control.TabPane bottomTabs() {
         return bottomTabs;
+    }
+
+    public DividerTradeoffChart tradeoffChart() {
+        return tradeoffChart;
+    }
+
+    public PowerOnChart powerOnChart() {
+        return powerOnChart;
+    }
+
+    public ResponseChart responseChart() {
+        return responseChart;
+    }
+
+    public MonteCarloPanel monteCarlo() {
+        return monteCarlo;
     }
 
     public ChainCanvas chain() {

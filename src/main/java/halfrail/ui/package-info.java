@@ -1,6 +1,7 @@
 /**
  * The desktop application: JavaFX views and their view-models. No physics lives here; every
- * number shown comes from {@link halfrail.check.DesignAnalysis}, called through an injected
+ * number shown comes from {@link halfrail.check.DesignAnalysis} and the check layer's studies
+ * (supply sweep, Monte Carlo, divider trade-off) or {@link halfrail.convert.Converter}, called through an injected
  * {@link halfrail.ui.AnalysisExecutor} so that the FX thread never runs an analysis.
  *
  * <h2>Structure</h2>
@@ -15,9 +16,15 @@
  *       {@link halfrail.ui.FindingsPanelModel} / {@link halfrail.ui.FindingsPanel},
  *       {@link halfrail.ui.ReadingsPanelModel} / {@link halfrail.ui.ReadingsPanel},
  *       {@link halfrail.ui.ChainPanelModel} / {@link halfrail.ui.ChainCanvas}, and
- *       {@link halfrail.ui.SupplyTrialBar} on the main view-model.</li>
+ *       {@link halfrail.ui.SupplyTrialBar} on the main view-model; the plots
+ *       {@link halfrail.ui.HeadroomSweepModel} / {@link halfrail.ui.HeadroomChart},
+ *       {@link halfrail.ui.ReportPlotsModel} / {@link halfrail.ui.PowerOnChart} and {@link halfrail.ui.ResponseChart},
+ *       {@link halfrail.ui.DividerTradeoffModel} / {@link halfrail.ui.DividerTradeoffChart};
+ *       {@link halfrail.ui.MonteCarloModel} / {@link halfrail.ui.MonteCarloPanel} with {@link halfrail.ui.HistogramCanvas};
+ *       {@link halfrail.ui.ConversionModel} / {@link halfrail.ui.ConversionDialog}.</li>
+ *   <li>{@link halfrail.ui.RecoveryStore} keeps unsaved work in a recovery file (plain class, no toolkit).</li>
  *   <li>Drawn views keep geometry and hit-testing in plain classes
- *       ({@link halfrail.ui.LadderGeometry}, {@link halfrail.ui.ChainGeometry}); the canvases only paint.</li>
+ *       ({@link halfrail.ui.LadderGeometry}, {@link halfrail.ui.ChainGeometry}, {@link halfrail.ui.HistogramGeometry}); the canvases only paint.</li>
  *   <li>{@link halfrail.ui.HalfrailApp} is the JavaFX application; {@link halfrail.ui.AppLauncher}
  *       is the bridge the command-line launcher calls (JavaFX sits on the class path).</li>
  *   <li>Design files plug in through {@link halfrail.ui.DesignFileActions}

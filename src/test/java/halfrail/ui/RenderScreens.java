@@ -71,6 +71,44 @@ class RenderScreens {
         assertTrue(Files.size(file) > 10_000);
     }
 
+    @Test
+    void rendersTheMonteCarloTabAfterATenThousandBuildStudy() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(5);
+            v.model().monteCarlo().buildsProperty().set(10_000);
+            v.model().monteCarlo().run();
+        }, "monte-carlo.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersThePowerOnPlot() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(2);
+        }, "power-on-plot.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersTheResponsePlot() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(3);
+        }, "response-plot.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersTheBatteryTradeoff() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(4);
+        }, "battery-tradeoff.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
     /** Render a window on {@code design} after {@code prepare} has acted on it (on the FX thread). */
     static Path render(halfrail.design.Design design, java.util.function.Consumer<WorkbenchView> prepare, String name)
             throws Exception {

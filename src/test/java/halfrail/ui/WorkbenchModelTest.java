@@ -294,6 +294,23 @@ class WorkbenchModelTest {
     }
 
     @Test
+    void theHeadroomPlotMarksTheLowestPassingSupplyWhereTheHeadroomMeetsTheLimit() {
+        // a 68k feedback resistor (gain 1 + 68/3.9 ≈ 18.4: 1.84 V peak from 100 mV) fits a fresh block but not a run-down one
+        model.edit("R2", d -> d.withStage(0, d.stages().get(0).withFeedbackOhms(68e3)));
+        HeadroomSweepModel.Curve c = model.headroom().curves().get(0);
+        assertEquals(halfrail.check.LowestPassingSupply.Verdict.FAILS_BELOW, c.lowest().verdict(), c.lowestInWords());
+        double v = c.markVolts().getAsDouble();
+        assertTrue(v > model.design().supply().lowVolts() && v < model.design().supply().highVolts());
+        // the mark sits where the curve crosses the limit: the points either side lie below and above it
+        double limit = model.headroom().limitDbProperty().get();
+        HeadroomSweepModel.Point below = c.points().stream().filter(p -> p.volts() < v).reduce((a, b) -> b).orElseThrow();
+        HeadroomSweepModel.Point above = c.points().stream().filter(p -> p.volts() > v).findFirst().orElseThrow();
+        assertTrue(below.headroomDb() < limit && above.headroomDb() >= limit, below + " " + above);
+        assertTrue(c.lowestInWords().startsWith("passes down to "), c.lowestInWords());
+        assertTrue(c.lowestInWords().contains("% of the charge left"), "a battery: the charge left is told");
+    }
+
+    @Test
     void aCustomOpAmpStartsFromTheArchetypesFiguresAndItsSwingLimitMovesTheLadder() {
         EditorPanelModel.Choice opAmp = (EditorPanelModel.Choice) model.editor().field("stages[0].opAmp").orElseThrow();
         double top = ladder().swingHighVolts();
