@@ -83,7 +83,7 @@ class RandomDesignPropertiesTest {
         return new Design("random " + seed, "", supply, ref, stages, src, load, Thresholds.defaults(), 1e-3);
     }
 
-    @Property(tries = 60)
+    @Property(tries = 60, seed = "117650423633100")
     void aValidRandomDesignIsRefusedByFieldOrReportedWithFiniteNumbers(@ForAll long seed) {
         Design d = design(seed);
         DesignReport report;
@@ -107,7 +107,7 @@ class RandomDesignPropertiesTest {
         }
     }
 
-    @Property(tries = 8)
+    @Property(tries = 8, seed = "34935563821737")
     void withPowerOnTooTheReportHoldsOnlyFiniteNumbers(@ForAll long seed) {
         Design d = design(seed);
         try {

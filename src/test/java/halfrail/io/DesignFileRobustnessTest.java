@@ -73,14 +73,14 @@ class DesignFileRobustnessTest {
         }
     }
 
-    @Property(tries = 200)
+    @Property(tries = 200, seed = "118115985787151")
     void aTruncatedFileIsReadOrRefused(@ForAll @IntRange(min = 0, max = 100_000) int cut) {
         int at = cut % (SAMPLE.length + 1);
         byte[] head = java.util.Arrays.copyOf(SAMPLE, at);
         readsOrRefuses(head);
     }
 
-    @Property(tries = 300, shrinking = ShrinkingMode.BOUNDED)
+    @Property(tries = 300, shrinking = ShrinkingMode.BOUNDED, seed = "260002392983112")
     void aFileWithMutatedBytesIsReadOrRefused(@ForAll("mutations") List<int[]> mutations) {
         byte[] bytes = SAMPLE.clone();
         for (int[] m : mutations) {
@@ -96,7 +96,7 @@ class DesignFileRobustnessTest {
         return one.list().ofMinSize(1).ofMaxSize(8);
     }
 
-    @Property(tries = 100)
+    @Property(tries = 100, seed = "21160679795062")
     void binaryJunkIsRefused(@ForAll("junk") byte[] junk) {
         readsOrRefuses(junk);
     }
@@ -106,7 +106,7 @@ class DesignFileRobustnessTest {
         return Arbitraries.bytes().array(byte[].class).ofMaxSize(4096);
     }
 
-    @Property(tries = 300, shrinking = ShrinkingMode.BOUNDED)
+    @Property(tries = 300, shrinking = ShrinkingMode.BOUNDED, seed = "130762869278700")
     void anyValueReplacedByAnotherTypeOrAnExtremeNumberIsReadOrRefused(
             @ForAll @IntRange(min = 0, max = 10_000) int where, @ForAll("replacements") JsonNode replacement) {
         ObjectNode tree = DesignFileTexts.tree(DesignFileTexts.rich());
@@ -153,7 +153,7 @@ class DesignFileRobustnessTest {
         return out;
     }
 
-    @Property(tries = 100)
+    @Property(tries = 100, seed = "95967389198369")
     void anUnknownFieldAnywhereIsRefusedAtItsPath(@ForAll @IntRange(min = 0, max = 10_000) int where,
                                                  @ForAll("fieldNames") String name) {
         ObjectNode tree = DesignFileTexts.tree(DesignFileTexts.rich());
@@ -186,7 +186,7 @@ class DesignFileRobustnessTest {
         node.elements().forEachRemaining(child -> collectObjects(child, out));
     }
 
-    @Property(tries = 30)
+    @Property(tries = 30, seed = "241452353792499")
     void deeplyNestedJsonIsRefused(@ForAll @IntRange(min = 1, max = 200_000) int depth,
                                    @ForAll boolean objects) {
         String open = objects ? "{\"a\":" : "[";
@@ -203,7 +203,7 @@ class DesignFileRobustnessTest {
         }
     }
 
-    @Property(tries = 20)
+    @Property(tries = 20, seed = "258462478146464")
     void veryLongLinesAreReadOrRefused(@ForAll @IntRange(min = 1, max = 2_000_000) int length,
                                        @ForAll boolean inAString) {
         String pad = inAString ? "x".repeat(length) : " ".repeat(length);

@@ -43,19 +43,19 @@ class NetlistReaderRobustnessTest {
         }
     }
 
-    @Property(tries = 1500)
+    @Property(tries = 1500, seed = "211372717643349")
     @Label("arbitrary text gives a netlist or a NetlistException")
     void arbitraryTextGivesANetlistOrANetlistException(@ForAll @StringLength(max = 300) String text) {
         parseOrNetlistException(text);
     }
 
-    @Property(tries = 1500)
+    @Property(tries = 1500, seed = "127391190081994")
     @Label("text of netlist characters gives a netlist or a NetlistException")
     void netlistCharactersGiveANetlistOrANetlistException(@ForAll("netlistCharacters") String text) {
         parseOrNetlistException(text);
     }
 
-    @Property(tries = 3000)
+    @Property(tries = 3000, seed = "45694023444902")
     @Label("mutated netlist lines give a netlist or a NetlistException")
     void mutatedLinesGiveANetlistOrANetlistException(@ForAll("mutatedNetlists") String text) {
         parseOrNetlistException(text);

@@ -26,7 +26,7 @@ class EngineeringValuePropertiesTest {
         assertTrue(Math.abs(back - x) <= bound, () -> x + " -> \"" + text + "\" -> " + back);
     }
 
-    @Property
+    @Property(seed = "92907239601119")
     @Label("format then parse returns the value within 3-digit rounding, 1e-15 to 1e12, every unit")
     void formatThenParseRoundTrips(@ForAll @DoubleRange(min = -15, max = 12) double exponent, @ForAll Unit unit) {
         double x = decades(exponent);
@@ -35,7 +35,7 @@ class EngineeringValuePropertiesTest {
         assertWithinRounding(x, EngineeringValue.parse(text), EngineeringValue.DEFAULT_SIGNIFICANT_DIGITS, text);
     }
 
-    @Property
+    @Property(seed = "232356646207130")
     @Label("format with d digits then parse returns the value within d-digit rounding, signed values too")
     void formatWithDigitsThenParseRoundTrips(@ForAll @DoubleRange(min = -15, max = 12) double exponent,
                                              @ForAll Unit unit, @ForAll boolean negative,
@@ -45,7 +45,7 @@ class EngineeringValuePropertiesTest {
         assertWithinRounding(x, EngineeringValue.parse(text, unit), digits, text);
     }
 
-    @Property
+    @Property(seed = "48568199997660")
     @Label("17 significant digits reproduce the double exactly (IEEE 754-2019 §5.12.2)")
     void seventeenDigitsAreExact(@ForAll @DoubleRange(min = -40, max = 40) double exponent, @ForAll Unit unit) {
         double x = decades(exponent);
@@ -53,7 +53,7 @@ class EngineeringValuePropertiesTest {
         assertEquals(x, EngineeringValue.parse(text, unit), text);
     }
 
-    @Property
+    @Property(seed = "48594303049519")
     @Label("formatCode then parse (as ohms) returns the value within 3-digit rounding, 1e-15 to 1e14")
     void codeThenParseRoundTrips(@ForAll @DoubleRange(min = -15, max = 14.99) double exponent) {
         double x = decades(exponent);

@@ -34,7 +34,7 @@ class LabelStackTest {
         assertEquals(472, placed[0], 1e-9);
     }
 
-    @Property(tries = 200)
+    @Property(tries = 200, seed = "174545027661584")
     void placedLabelsKeepTheirOrderAndTheirGap(@ForAll @Size(min = 1, max = 14) List<@DoubleRange(min = 0, max = 400) Double> ys) {
         double[] wanted = ys.stream().mapToDouble(Double::doubleValue).toArray();
         double[] placed = LabelStack.spread(wanted, 14, 0, 400);
