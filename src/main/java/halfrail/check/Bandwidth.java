@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.circuit.OpAmp;
 import halfrail.design.Stage;
 import halfrail.design.StageKind;
@@ -31,26 +32,26 @@ final class Bandwidth implements DesignCheck {
                     .max(Comparator.comparingDouble(CapacitorReport::cornerHz));
             String suggestion = highest.map(c -> {
                 double target = ESeries.E6.nextHigher(c.farads() * c.cornerHz() * CORNER_MARGIN / ch.bandLowHz());
-                return "the highest single corner is " + c.element() + " at " + Text.hertz(c.cornerHz())
-                        + " (sees " + Text.ohms(c.seenOhms()) + "); raise it to " + Text.farads(target);
+                return "the highest single corner is " + c.element() + " at " + Quantities.hertz(c.cornerHz())
+                        + " (sees " + Quantities.ohms(c.seenOhms()) + "); raise it to " + Quantities.farads(target);
             }).orElse("raise the coupling capacitors so that each corner lies well below the band");
             out.add(Finding.of(LOW_CORNER, Severity.WARN, "the chain's lower −3 dB point is "
-                            + Text.hertz(ch.lowerCornerHz().getAsDouble()) + ", above the band's low end "
-                            + Text.hertz(ch.bandLowHz()),
+                            + Quantities.hertz(ch.lowerCornerHz().getAsDouble()) + ", above the band's low end "
+                            + Quantities.hertz(ch.bandLowHz()),
                     highest.map(c -> List.of(c.designPath())).orElse(List.of()), suggestion));
         }
         if (ch.upperCornerHz().isPresent() && ch.upperCornerHz().getAsDouble() < ch.bandHighHz()) {
             out.add(Finding.of(UPPER, Severity.WARN, "the chain's upper −3 dB point is "
-                            + Text.hertz(ch.upperCornerHz().getAsDouble()) + ", below the band's high end "
-                            + Text.hertz(ch.bandHighHz()),
+                            + Quantities.hertz(ch.upperCornerHz().getAsDouble()) + ", below the band's high end "
+                            + Quantities.hertz(ch.bandHighHz()),
                     slowStages(e, ch.bandHighHz()), "use op-amps with more gain-bandwidth (at least stage gain × "
-                            + Text.hertz(ch.bandHighHz()) + " × 3 each) or spread the gain over more stages"));
+                            + Quantities.hertz(ch.bandHighHz()) + " × 3 each) or spread the gain over more stages"));
         }
         for (StageReport s : e.stages()) {
             if (s.signal() && s.fullPowerHz().isPresent() && s.fullPowerHz().getAsDouble() < ch.bandHighHz()) {
-                out.add(Finding.at(SLEW, Severity.WARN, s.label() + ": at " + Text.volts(s.nominal().signalPeakVolts())
-                                + " peak the slew rate limits the output to " + Text.hertz(s.fullPowerHz().getAsDouble())
-                                + ", below the band's high end " + Text.hertz(ch.bandHighHz()),
+                out.add(Finding.at(SLEW, Severity.WARN, s.label() + ": at " + Quantities.volts(s.nominal().signalPeakVolts())
+                                + " peak the slew rate limits the output to " + Quantities.hertz(s.fullPowerHz().getAsDouble())
+                                + ", below the band's high end " + Quantities.hertz(ch.bandHighHz()),
                         List.of(s.designPath() + ".opAmp"), "choose an op-amp with a slew rate of at least "
                                 + String.format(java.util.Locale.ROOT, "%.2g V/µs",
                                 2 * Math.PI * ch.bandHighHz() * s.nominal().signalPeakVolts() / 1e6),

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.design.Stage;
 import halfrail.design.StageKind;
 import halfrail.units.ESeries;
@@ -34,7 +35,7 @@ final class BiasAmplified implements DesignCheck {
                     parts = List.of(s.designPath() + ".legCapacitor", s.designPath() + ".legOhms");
                     double c = ESeries.E6.nextHigher(CORNER_MARGIN
                             / (2 * Math.PI * stage.legOhms() * e.design().source().bandLowHz()));
-                    suggestion = "put a blocking capacitor of " + Text.farads(c) + " (film or ceramic) in series with R1 "
+                    suggestion = "put a blocking capacitor of " + Quantities.farads(c) + " (film or ceramic) in series with R1 "
                             + "to ground, so the stage has gain 1 for its bias and " + String.format(java.util.Locale.ROOT,
                             "%.3g", stage.nominalGain()) + " for the signal";
                 } else {
@@ -45,9 +46,9 @@ final class BiasAmplified implements DesignCheck {
                 }
                 out.add(Finding.at(CODE, Severity.FAIL, s.label() + ": the stage multiplies its bias by "
                                 + String.format(java.util.Locale.ROOT, "%.3g", s.biasGain())
-                                + ", so the reference of " + Text.volts(s.inPlusVolts()) + " would become "
-                                + Text.volts(s.biasGain() * s.inPlusVolts()) + "; the output sits at "
-                                + Text.volts(s.outputVolts()),
+                                + ", so the reference of " + Quantities.volts(s.inPlusVolts()) + " would become "
+                                + Quantities.volts(s.biasGain() * s.inPlusVolts()) + "; the output sits at "
+                                + Quantities.volts(s.outputVolts()),
                         parts, suggestion,
                         s.label(), LadderLevel.QUIESCENT));
             }

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.design.ReferenceKind;
 
 import java.util.List;
@@ -17,8 +18,8 @@ final class BiasShift implements DesignCheck {
         for (StageReport s : e.stages()) {
             if (Math.abs(s.biasCurrentShiftVolts()) > limit) {
                 out.add(Finding.at(CODE, Severity.WARN, s.label() + ": the op-amps' input bias currents move the "
-                                + "non-inverting input by " + Text.volts(s.biasCurrentShiftVolts()) + " (limit "
-                                + Text.volts(limit) + ")",
+                                + "non-inverting input by " + Quantities.volts(s.biasCurrentShiftVolts()) + " (limit "
+                                + Quantities.volts(limit) + ")",
                         java.util.stream.Stream.concat(through.stream(), java.util.stream.Stream.of(s.designPath() + ".opAmp"))
                                 .toList(),
                         "lower the bias resistance (and the divider) or choose an op-amp with lower bias current",

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.parts.CapacitorTechnology;
 import halfrail.parts.PartsLibrary;
 
@@ -24,15 +25,15 @@ final class CapacitorVoltage implements DesignCheck {
         for (CapacitorReport c : e.capacitors()) {
             if (c.polarised() && c.dcVolts() < -REVERSE_TOLERANCE_VOLTS) {
                 out.add(Finding.of(REVERSED, Severity.FAIL, c.element() + " (" + c.technology()
-                                + ") is reverse biased by " + Text.volts(-c.dcVolts()) + " at rest",
+                                + ") is reverse biased by " + Quantities.volts(-c.dcVolts()) + " at rest",
                         List.of(c.designPath()), "turn it round (positive terminal towards the higher DC voltage), "
                                 + "or use a non-polarised film or ceramic part"));
             }
             if (c.worstVolts() > c.deratedVolts()) {
                 double needed = c.worstVolts() * c.ratedVolts() / c.deratedVolts();
-                out.add(Finding.of(OVER, Severity.FAIL, c.element() + " sees up to " + Text.volts(c.worstVolts())
+                out.add(Finding.of(OVER, Severity.FAIL, c.element() + " sees up to " + Quantities.volts(c.worstVolts())
                                 + " (DC plus signal peak over the supply range), above its derated "
-                                + Text.volts(c.deratedVolts()) + " (rated " + Text.volts(c.ratedVolts()) + ")",
+                                + Quantities.volts(c.deratedVolts()) + " (rated " + Quantities.volts(c.ratedVolts()) + ")",
                         List.of(c.designPath()), suggestion(c, needed)));
             }
         }
@@ -47,9 +48,9 @@ final class CapacitorVoltage implements DesignCheck {
         Optional<CapacitorTechnology> tech = PartsLibrary.builtIn().capacitorTechnology(c.technology());
         Optional<Double> standard = tech.flatMap(t -> t.standardRatedVolts().stream().filter(v -> v >= needed)
                 .findFirst());
-        return standard.map(v -> "use a part rated " + Text.volts(v) + " (the smallest standard rating whose derated "
-                        + "voltage covers " + Text.volts(c.worstVolts()) + "; at least " + Text.volts(needed) + " is needed)")
-                .orElse("use a part rated for at least " + Text.volts(needed)
+        return standard.map(v -> "use a part rated " + Quantities.volts(v) + " (the smallest standard rating whose derated "
+                        + "voltage covers " + Quantities.volts(c.worstVolts()) + "; at least " + Quantities.volts(needed) + " is needed)")
+                .orElse("use a part rated for at least " + Quantities.volts(needed)
                         + ", or another technology: no standard rating of this one reaches it");
     }
 }

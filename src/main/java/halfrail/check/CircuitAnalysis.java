@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.circuit.Circuit;
 import halfrail.circuit.Element;
 import halfrail.circuit.OpAmp;
@@ -85,7 +86,7 @@ public final class CircuitAnalysis {
             findings.add(Finding.of(NoDcPath.CODE, Severity.FAIL, "node " + node
                             + " has no DC path to ground or to a driven output, so its voltage is undefined;"
                             + " voltages that depend on it are computed with it tied to ground through "
-                            + Text.ohms(TIE_OHMS), touching(circuit, node),
+                            + Quantities.ohms(TIE_OHMS), touching(circuit, node),
                     "add a resistor from " + node + " to a defined voltage (the mid-rail reference)"));
         }
         Map<String, Double> volts = new LinkedHashMap<>();
@@ -129,8 +130,8 @@ public final class CircuitAnalysis {
                     settle = r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty());
                     if (!settled) {
                         findings.add(Finding.of(NOT_SETTLED, Severity.WARN, "the circuit had not settled within "
-                                        + Text.volts(r.settleBandVolts()) + " of its operating point after "
-                                        + Text.seconds(POWER_ON_STOP_SECONDS) + " of power-on",
+                                        + Quantities.volts(r.settleBandVolts()) + " of its operating point after "
+                                        + Quantities.seconds(POWER_ON_STOP_SECONDS) + " of power-on",
                                 List.of(), "look for a very long time constant or a low-frequency oscillation"));
                     }
                 } catch (AnalysisException e) {
@@ -182,28 +183,28 @@ public final class CircuitAnalysis {
             boolean nearHigh = toHigh < toLow;
             LadderLevel level = nearHigh ? LadderLevel.SWING_HIGH : LadderLevel.SWING_LOW;
             String limit = (nearHigh ? "upper" : "lower") + " limit of "
-                    + Text.volts(nearHigh ? s.swingHighVolts() : s.swingLowVolts());
+                    + Quantities.volts(nearHigh ? s.swingHighVolts() : s.swingLowVolts());
             if (s.saturated()) {
                 out.add(Finding.at(RestsOnRail.CODE, Severity.FAIL, s.name() + ": the output rests at "
-                                + Text.volts(s.outputVolts()) + " against its " + limit
+                                + Quantities.volts(s.outputVolts()) + " against its " + limit
                                 + ": the op-amp has left its linear region with no signal (inputs "
-                                + Text.volts(s.inPlusVolts()) + " and " + Text.volts(s.inMinusVolts()) + ")",
+                                + Quantities.volts(s.inPlusVolts()) + " and " + Quantities.volts(s.inMinusVolts()) + ")",
                         List.of(s.name()), "give the stage unity DC gain for its bias and bias it mid-window",
                         s.name(), level));
             } else if (window > 0 && Math.min(toLow, toHigh) < NEAR_RAIL_FRACTION * window) {
                 out.add(Finding.at(REST_NEAR_RAIL, Severity.WARN, s.name() + ": the output rests at "
-                                + Text.volts(s.outputVolts()) + ", " + Text.volts(Math.min(toLow, toHigh))
+                                + Quantities.volts(s.outputVolts()) + ", " + Quantities.volts(Math.min(toLow, toHigh))
                                 + " from its " + limit + String.format(Locale.ROOT, ", less than %.0f %% of its ",
-                                NEAR_RAIL_FRACTION * 100) + Text.volts(window) + " swing window",
+                                NEAR_RAIL_FRACTION * 100) + Quantities.volts(window) + " swing window",
                         List.of(s.name()), "move the rest point towards the middle of the window", s.name(), level));
             }
             if (!s.commonModeOk()) {
                 boolean plusOut = s.inPlusVolts() < s.commonModeLowVolts() || s.inPlusVolts() > s.commonModeHighVolts();
                 double v = plusOut ? s.inPlusVolts() : s.inMinusVolts();
                 out.add(Finding.at(CommonMode.CODE, Severity.FAIL, s.name() + ": the "
-                                + (plusOut ? "non-inverting" : "inverting") + " input rests at " + Text.volts(v)
-                                + ", outside the common-mode range " + Text.volts(s.commonModeLowVolts()) + " to "
-                                + Text.volts(s.commonModeHighVolts()),
+                                + (plusOut ? "non-inverting" : "inverting") + " input rests at " + Quantities.volts(v)
+                                + ", outside the common-mode range " + Quantities.volts(s.commonModeLowVolts()) + " to "
+                                + Quantities.volts(s.commonModeHighVolts()),
                         List.of(s.name()), "bias the inputs inside the range, or choose a part whose inputs reach that rail",
                         s.name(), v < s.commonModeLowVolts() ? LadderLevel.COMMON_MODE_LOW : LadderLevel.COMMON_MODE_HIGH));
             }

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.design.Stage;
 import halfrail.design.StageKind;
 import halfrail.units.ESeries;
@@ -24,12 +25,12 @@ final class CommonPractice implements DesignCheck {
             if (st.kind() != StageKind.FOLLOWER && st.feedbackOhms() > e.thresholds().maxFeedbackOhms()) {
                 double scale = e.thresholds().maxFeedbackOhms() / st.feedbackOhms();
                 out.add(Finding.at(FEEDBACK, Severity.WARN, r.label() + ": the feedback resistor R2 is "
-                                + Text.ohms(st.feedbackOhms()) + ", above the usual ceiling of "
-                                + Text.ohms(e.thresholds().maxFeedbackOhms()) + " (common practice): bias current, "
+                                + Quantities.ohms(st.feedbackOhms()) + ", above the usual ceiling of "
+                                + Quantities.ohms(e.thresholds().maxFeedbackOhms()) + " (common practice): bias current, "
                                 + "leakage and noise all grow with it",
                         List.of(r.designPath() + ".feedbackOhms"),
-                        "scale R2 and R1 down together: R2 = " + Text.ohms(ESeries.E24.nearest(st.feedbackOhms() * scale))
-                                + ", R1 = " + Text.ohms(ESeries.E24.nearest(st.legOhms() * scale))
+                        "scale R2 and R1 down together: R2 = " + Quantities.ohms(ESeries.E24.nearest(st.feedbackOhms() * scale))
+                                + ", R1 = " + Quantities.ohms(ESeries.E24.nearest(st.legOhms() * scale))
                                 + " keeps the gain; raise the leg capacitor in proportion",
                         r.label(), null));
             }

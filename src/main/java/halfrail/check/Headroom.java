@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import java.util.List;
 
 /**
@@ -22,24 +23,24 @@ final class Headroom implements DesignCheck {
             SwingReport n = s.nominal();
             if (n.clips()) {
                 out.add(Finding.at(CLIPS, Severity.FAIL, s.label() + ": the nominal signal of "
-                                + Text.volts(n.signalPeakVolts()) + " peak at the output clips on the "
-                                + side(n) + " side at " + Text.volts(n.supplyVolts()) + ": only "
-                                + Text.volts(Math.max(0, Math.min(n.availableLowVolts(), n.availableHighVolts())))
+                                + Quantities.volts(n.signalPeakVolts()) + " peak at the output clips on the "
+                                + side(n) + " side at " + Quantities.volts(n.supplyVolts()) + ": only "
+                                + Quantities.volts(Math.max(0, Math.min(n.availableLowVolts(), n.availableHighVolts())))
                                 + " of room (" + db(n) + ")",
                         List.of(s.designPath()), suggestion(n), s.label(), LadderLevel.SIGNAL_ENVELOPE));
             } else if (n.headroomDb().isPresent() && n.headroomDb().getAsDouble() < margin) {
                 out.add(Finding.at(LOW, Severity.WARN, s.label() + ": headroom at the nominal signal is "
                                 + db(n) + " on the " + side(n) + " side, below the "
-                                + Text.db(margin) + " asked for",
+                                + Quantities.db(margin) + " asked for",
                         List.of(s.designPath()), suggestion(n), s.label(), LadderLevel.SIGNAL_ENVELOPE));
             }
             SwingReport end = s.endPoint();
             if (!n.clips() && end.clips()) {
                 out.add(Finding.at(END_POINT, Severity.FAIL, s.label() + ": at the lowest supply, "
-                                + Text.volts(end.supplyVolts()) + ", the nominal signal clips on the " + side(end)
+                                + Quantities.volts(end.supplyVolts()) + ", the nominal signal clips on the " + side(end)
                                 + " side (" + (end.saturated() ? "the output sits on a rail" : db(end))
                                 + "); the largest source level that fits there is "
-                                + Text.volts(end.largestSourcePeakVolts().orElse(0)) + " peak",
+                                + Quantities.volts(end.largestSourcePeakVolts().orElse(0)) + " peak",
                         List.of(s.designPath(), "supply"),
                         "lower the stage gain, choose an op-amp with outputs closer to the rails, or a supply that ends higher",
                         s.label(), LadderLevel.END_POINT_SUPPLY));
@@ -48,7 +49,7 @@ final class Headroom implements DesignCheck {
     }
 
     private static String db(SwingReport r) {
-        return r.headroomDb().isPresent() ? Text.db(r.headroomDb().getAsDouble()) : "no room at all";
+        return r.headroomDb().isPresent() ? Quantities.db(r.headroomDb().getAsDouble()) : "no room at all";
     }
 
     private static String side(SwingReport r) {
@@ -56,7 +57,7 @@ final class Headroom implements DesignCheck {
     }
 
     private static String suggestion(SwingReport n) {
-        return "the largest source level that fits is " + Text.volts(n.largestSourcePeakVolts().orElse(0))
+        return "the largest source level that fits is " + Quantities.volts(n.largestSourcePeakVolts().orElse(0))
                 + " peak; lower the gain, centre the rest point, or use an op-amp with a wider swing window";
     }
 }

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import java.util.List;
 import java.util.Map;
 
@@ -28,8 +29,8 @@ final class LeakageDrift implements DesignCheck {
             }
             String path = worst == null ? s.designPath() : e.circuit().designPath(worst);
             out.add(Finding.at(CODE, Severity.WARN, s.label() + ": capacitor leakage at its limit moves the output by "
-                            + Text.volts(s.leakageDriftVolts()) + " (limit " + Text.volts(limit) + ")"
-                            + (worst == null ? "" : "; " + worst + " alone accounts for " + Text.volts(worstShift)),
+                            + Quantities.volts(s.leakageDriftVolts()) + " (limit " + Quantities.volts(limit) + ")"
+                            + (worst == null ? "" : "; " + worst + " alone accounts for " + Quantities.volts(worstShift)),
                     worst == null ? List.of(s.designPath()) : List.of(path),
                     "use a low-leakage dielectric there (polyester or polypropylene film, C0G ceramic) instead of an "
                             + "electrolytic, or lower the feedback resistance that the leakage current flows through",

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import java.util.List;
 
 /**
@@ -30,12 +31,12 @@ final class OffCentre implements DesignCheck {
             if (lostDb > e.thresholds().offCentreDb()) {
                 double centre = n.swingLowVolts() + half;
                 out.add(Finding.at(CODE, Severity.WARN,
-                        s.label() + ": the rest point " + Text.volts(n.quiescentVolts()) + " is "
-                                + Text.volts(Math.abs(n.quiescentVolts() - centre)) + " off the window's centre "
-                                + Text.volts(centre) + ", losing " + Text.db(lostDb) + " of headroom on the "
+                        s.label() + ": the rest point " + Quantities.volts(n.quiescentVolts()) + " is "
+                                + Quantities.volts(Math.abs(n.quiescentVolts() - centre)) + " off the window's centre "
+                                + Quantities.volts(centre) + ", losing " + Quantities.db(lostDb) + " of headroom on the "
                                 + (n.clipsFirst() == Side.LOW ? "low" : "high") + " side",
                         List.of("reference"),
-                        "move the mid-rail reference towards " + Text.volts(centre)
+                        "move the mid-rail reference towards " + Quantities.volts(centre)
                                 + " (the divider ratio sets it; an op-amp whose window is symmetric about mid-rail also helps)",
                         s.label(), LadderLevel.QUIESCENT));
             }

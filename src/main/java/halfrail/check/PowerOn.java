@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import java.util.List;
 import java.util.Map;
 
@@ -23,12 +24,12 @@ final class PowerOn implements DesignCheck {
         double limit = e.thresholds().maxSettleSeconds();
         if (!p.settled()) {
             out.add(Finding.of(SLOW, Severity.WARN, "the circuit had not settled within "
-                            + Text.volts(p.bandVolts()) + " of its final state after " + Text.seconds(p.simulatedSeconds()),
+                            + Quantities.volts(p.bandVolts()) + " of its final state after " + Quantities.seconds(p.simulatedSeconds()),
                     List.of("reference"), "shorten the longest time constant: usually the reference decoupling "
                             + "(divider ‖ resistance × capacitor) or the feedback-leg capacitor"));
         } else if (p.settleSeconds().isPresent() && p.settleSeconds().getAsDouble() > limit) {
-            out.add(Finding.of(SLOW, Severity.WARN, "settle-up takes " + Text.seconds(p.settleSeconds().getAsDouble())
-                            + " to within " + Text.volts(p.bandVolts()) + ", longer than the limit " + Text.seconds(limit),
+            out.add(Finding.of(SLOW, Severity.WARN, "settle-up takes " + Quantities.seconds(p.settleSeconds().getAsDouble())
+                            + " to within " + Quantities.volts(p.bandVolts()) + ", longer than the limit " + Quantities.seconds(limit),
                     List.of("reference"), "shorten the longest time constant: usually the reference decoupling "
                             + "(divider ‖ resistance × capacitor) or the feedback-leg capacitor"));
         }
@@ -37,7 +38,7 @@ final class PowerOn implements DesignCheck {
                 String path = e.stages().stream().filter(s -> s.label().equals(en.getKey()))
                         .map(StageReport::designPath).findFirst().orElse("");
                 out.add(Finding.at(PINNED, Severity.NOTE, en.getKey() + ": the output sits on a rail for "
-                                + Text.seconds(en.getValue()) + " after switch-on while the capacitors charge",
+                                + Quantities.seconds(en.getValue()) + " after switch-on while the capacitors charge",
                         List.of(path), "expected with large feedback-leg or reference capacitors; mute the output "
                                 + "during start if the load must not see it", en.getKey(), LadderLevel.QUIESCENT));
             }
@@ -45,7 +46,7 @@ final class PowerOn implements DesignCheck {
         if (p.loadStepVolts() > e.thresholds().maxStepVolts()) {
             boolean coupled = e.design().load().outputCapacitor() != null;
             out.add(Finding.of(STEP, Severity.WARN, "at switch-on the load sees a step of up to "
-                            + Text.volts(p.loadStepVolts()) + " (limit " + Text.volts(e.thresholds().maxStepVolts()) + ")",
+                            + Quantities.volts(p.loadStepVolts()) + " (limit " + Quantities.volts(e.thresholds().maxStepVolts()) + ")",
                     List.of(coupled ? "load.outputCapacitor" : "load"), coupled
                             ? "ramp the supply more slowly, add a resistor to ground before the output capacitor so it "
                             + "charges before the load is connected, or mute at start"

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import java.util.List;
 
 /** An output that sits on (or within a few per cent of) a swing limit at rest has no room to swing on that side. */
@@ -19,16 +20,16 @@ final class RestsOnRail implements DesignCheck {
                 boolean atLow = n.saturated() ? n.availableLowVolts() < n.availableHighVolts() : low;
                 String limit = atLow ? "lower" : "upper";
                 String where = window > 0
-                        ? ", on its " + limit + " swing limit (window " + Text.volts(n.swingLowVolts()) + " to "
-                                + Text.volts(n.swingHighVolts()) + " at " + Text.volts(n.supplyVolts()) + ")"
-                        : ": at " + Text.volts(n.supplyVolts()) + " the part has no output window at all (it needs "
+                        ? ", on its " + limit + " swing limit (window " + Quantities.volts(n.swingLowVolts()) + " to "
+                                + Quantities.volts(n.swingHighVolts()) + " at " + Quantities.volts(n.supplyVolts()) + ")"
+                        : ": at " + Quantities.volts(n.supplyVolts()) + " the part has no output window at all (it needs "
                                 + "more supply than its two output headrooms together)";
                 out.add(Finding.at(CODE, Severity.FAIL,
-                        s.label() + ": the output rests at " + Text.volts(n.quiescentVolts()) + where
+                        s.label() + ": the output rests at " + Quantities.volts(n.quiescentVolts()) + where
                                 + (n.saturated() ? "; the op-amp has left its linear region" : ""),
                         List.of(s.designPath()),
                         "bias the stage at the middle of its window, about "
-                                + Text.volts((n.swingLowVolts() + n.swingHighVolts()) / 2)
+                                + Quantities.volts((n.swingLowVolts() + n.swingHighVolts()) / 2)
                                 + ", with unity DC gain for the bias",
                         s.label(), atLow ? LadderLevel.SWING_LOW : LadderLevel.SWING_HIGH));
             }

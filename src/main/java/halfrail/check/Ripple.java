@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.design.ReferenceKind;
 
 import java.util.List;
@@ -20,10 +21,10 @@ final class Ripple implements DesignCheck {
             return;
         }
         boolean direct = e.design().reference().kind() == ReferenceKind.DIVIDER_DIRECT;
-        out.add(Finding.of(CODE, Severity.WARN, "supply ripple of " + Text.volts(e.design().supply().rippleVoltsPeak())
-                        + " at " + Text.hertz(e.design().supply().rippleHz()) + " reaches the load as "
-                        + Text.volts(ch.rippleAtLoadVolts()) + " peak (gain " + String.format(java.util.Locale.ROOT,
-                        "%.3g", ch.rippleGain()) + "; limit " + Text.volts(limit) + ")",
+        out.add(Finding.of(CODE, Severity.WARN, "supply ripple of " + Quantities.volts(e.design().supply().rippleVoltsPeak())
+                        + " at " + Quantities.hertz(e.design().supply().rippleHz()) + " reaches the load as "
+                        + Quantities.volts(ch.rippleAtLoadVolts()) + " peak (gain " + String.format(java.util.Locale.ROOT,
+                        "%.3g", ch.rippleGain()) + "; limit " + Quantities.volts(limit) + ")",
                 List.of("reference"), direct
                         ? "decouple the divider's mid point with a capacitor and feed the stage through a bias resistor"
                         : "raise the reference decoupling capacitor, or buffer the reference"));

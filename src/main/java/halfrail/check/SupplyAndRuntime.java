@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.circuit.OpAmp;
 import halfrail.circuit.OpAmpParams;
 import halfrail.design.DesignCircuit;
@@ -26,8 +27,8 @@ final class SupplyAndRuntime implements DesignCheck {
         if (target > 0 && b.runtimeHours().isPresent() && b.runtimeHours().getAsDouble() < target) {
             out.add(Finding.of(RUNTIME, Severity.WARN, String.format(java.util.Locale.ROOT,
                             "runtime is %.3g h at %s, short of the %.3g h target (divider %s, op-amps %s)",
-                            b.runtimeHours().getAsDouble(), Text.amps(b.totalAmps()), target,
-                            Text.amps(b.dividerAmps()), Text.amps(b.opAmpAmps())),
+                            b.runtimeHours().getAsDouble(), Quantities.amps(b.totalAmps()), target,
+                            Quantities.amps(b.dividerAmps()), Quantities.amps(b.opAmpAmps())),
                     List.of("reference", "supply"),
                     "raise the divider resistance, or choose lower-power op-amps"));
         }
@@ -55,8 +56,8 @@ final class SupplyAndRuntime implements DesignCheck {
     }
 
     private static Finding range(Supply supply, String label, String designPath) {
-        return Finding.at(RANGE, Severity.FAIL, label + ": the supply runs from " + Text.volts(supply.lowVolts())
-                        + " to " + Text.volts(supply.highVolts()) + ", outside the op-amp's specified supply range",
+        return Finding.at(RANGE, Severity.FAIL, label + ": the supply runs from " + Quantities.volts(supply.lowVolts())
+                        + " to " + Quantities.volts(supply.highVolts()) + ", outside the op-amp's specified supply range",
                 List.of(designPath + ".opAmp", "supply"),
                 "choose an op-amp specified for the whole supply range, from fresh to end-point",
                 label, LadderLevel.END_POINT_SUPPLY);

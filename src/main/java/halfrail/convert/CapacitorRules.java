@@ -1,5 +1,6 @@
 package halfrail.convert;
 
+import halfrail.units.Quantities;
 import halfrail.design.CapacitorSpec;
 import halfrail.design.Supply;
 import halfrail.parts.CapacitorTechnology;
@@ -63,11 +64,11 @@ final class CapacitorRules {
         double dc = high / 2;
         if (faradsNeeded <= CERAMIC_CLASS_1_MAX_FARADS) {
             return pick(parts, CapacitorTechnology.CERAMIC_CLASS_1, ESeries.E12, faradsNeeded, high,
-                    "class 1 ceramic: at most " + Units.farads(CERAMIC_CLASS_1_MAX_FARADS) + ", stable and low-leakage");
+                    "class 1 ceramic: at most " + Quantities.farads(CERAMIC_CLASS_1_MAX_FARADS) + ", stable and low-leakage");
         }
         if (faradsNeeded <= FILM_MAX_FARADS) {
             return pick(parts, CapacitorTechnology.POLYESTER_FILM, ESeries.E12, faradsNeeded, high,
-                    "film: up to " + Units.farads(FILM_MAX_FARADS) + ", negligible leakage");
+                    "film: up to " + Quantities.farads(FILM_MAX_FARADS) + ", negligible leakage");
         }
         if (position.lowLeakageOnly) {
             return pick(parts, CapacitorTechnology.POLYESTER_FILM, ESeries.E12, faradsNeeded, high,
@@ -82,14 +83,14 @@ final class CapacitorRules {
             double shift = t.leakageAmps(f, rated, dc, LeakageLevel.LIMIT) * leakOhms;
             if (shift <= allowed) {
                 return new Choice(new CapacitorSpec(f, tech, rated), t.displayName().toLowerCase(java.util.Locale.ROOT)
-                        + ": above " + Units.farads(FILM_MAX_FARADS) + " a large value is unavoidable, and its limit"
-                        + " leakage through " + Units.ohms(leakOhms) + " moves the bias by only " + Units.volts(shift)
-                        + " (allowed " + Units.volts(allowed) + ")");
+                        + ": above " + Quantities.farads(FILM_MAX_FARADS) + " a large value is unavoidable, and its limit"
+                        + " leakage through " + Quantities.ohms(leakOhms) + " moves the bias by only " + Quantities.volts(shift)
+                        + " (allowed " + Quantities.volts(allowed) + ")");
             }
         }
         return pick(parts, CapacitorTechnology.POLYESTER_FILM, ESeries.E12, faradsNeeded, high,
                 "film although large: an electrolytic's or tantalum part's limit leakage through "
-                        + Units.ohms(leakOhms) + " would move the bias by more than " + Units.volts(allowed));
+                        + Quantities.ohms(leakOhms) + " would move the bias by more than " + Quantities.volts(allowed));
     }
 
     private static Choice pick(PartsLibrary parts, String tech, ESeries series, double farads, double high,

@@ -1,5 +1,6 @@
 package halfrail.convert;
 
+import halfrail.units.Quantities;
 import halfrail.check.DesignAnalysis;
 import halfrail.check.DesignReport;
 import halfrail.check.StageReport;
@@ -211,10 +212,10 @@ public final class Converter {
 
         ConversionResult run() {
             changes.add(new Change(ChangeKind.SUPPLY_REPLACED, "supply",
-                    "+" + Units.volts(original.positiveVolts()) + "/−" + Units.volts(original.negativeVolts())
-                            + " (" + Units.volts(original.totalVolts()) + " total)",
-                    Units.volts(supply.nominalVolts()) + " nominal, " + Units.volts(supply.lowVolts()) + " to "
-                            + Units.volts(supply.highVolts()),
+                    "+" + Quantities.volts(original.positiveVolts()) + "/−" + Quantities.volts(original.negativeVolts())
+                            + " (" + Quantities.volts(original.totalVolts()) + " total)",
+                    Quantities.volts(supply.nominalVolts()) + " nominal, " + Quantities.volts(supply.lowVolts()) + " to "
+                            + Quantities.volts(supply.highVolts()),
                     "one rail: every stage now rests at a reference near mid-rail instead of at ground"));
             chooseOpAmps();
             checkResistors();
@@ -229,8 +230,8 @@ public final class Converter {
                 iteration++;
                 if (iteration > MAX_CORNER_ITERATIONS) {
                     throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
-                            "the chain's lower corner stayed at " + Units.hertz(corner.getAsDouble())
-                                    + ", above the band's low end " + Units.hertz(bandLow) + ", after "
+                            "the chain's lower corner stayed at " + Quantities.hertz(corner.getAsDouble())
+                                    + ", above the band's low end " + Quantities.hertz(bandLow) + ", after "
                                     + MAX_CORNER_ITERATIONS + " rounds of enlarging the capacitors");
                 }
                 build = build(bandLow, scale);
@@ -243,9 +244,9 @@ public final class Converter {
             if (iteration > 1) {
                 changes.add(new Change(ChangeKind.CAPACITORS_ENLARGED, "", "sized from the corner rule",
                         String.format(java.util.Locale.ROOT, "×%.2f", scale),
-                        "the engine found the chain's real corner above " + Units.hertz(bandLow)
+                        "the engine found the chain's real corner above " + Quantities.hertz(bandLow)
                                 + " with the first choice; after " + iteration + " rounds it is "
-                                + corner.stream().mapToObj(Units::hertz).findFirst().orElse("below the range")));
+                                + corner.stream().mapToObj(Quantities::hertz).findFirst().orElse("below the range")));
             }
             Build chosen = build;
             double tauSum = chosen.timeConstantSumSeconds();
@@ -311,16 +312,16 @@ public final class Converter {
                         conflicts.add(new Conflict(ConflictKind.NO_FITTING_OP_AMP, "the supply and signal as given",
                                 s.name() + ": an op-amp that fits", peakOut, f.endPointRoomVolts(),
                                 Math.max(0, peakOut - f.endPointRoomVolts()), "V",
-                                s.name() + ": no op-amp archetype runs on " + Units.volts(supply.lowVolts()) + " to "
-                                        + Units.volts(supply.highVolts()) + " with the " + Units.volts(peakOut)
-                                        + " peak output; the best leaves " + Units.volts(f.endPointRoomVolts())
+                                s.name() + ": no op-amp archetype runs on " + Quantities.volts(supply.lowVolts()) + " to "
+                                        + Quantities.volts(supply.highVolts()) + " with the " + Quantities.volts(peakOut)
+                                        + " peak output; the best leaves " + Quantities.volts(f.endPointRoomVolts())
                                         + " of room at the end-point. Lower the signal or the gain, or use a higher supply."));
                     } else {
                         opAmps.add(OpAmpChoice.archetype(best.id()));
                         changes.add(new Change(ChangeKind.OP_AMP_REPLACED, path, describe(s.opAmp()), best.id(),
                                 s.name() + ": " + ownFit.reason() + "; " + best.displayName() + " works from "
-                                        + Units.volts(best.typical().supplyMinVolts()) + " and swings within "
-                                        + Units.volts(Math.max(best.typical().swingLowVolts(),
+                                        + Quantities.volts(best.typical().supplyMinVolts()) + " and swings within "
+                                        + Quantities.volts(Math.max(best.typical().swingLowVolts(),
                                         best.typical().swingHighVolts())) + " of the rails"));
                     }
                 }
@@ -344,17 +345,17 @@ public final class Converter {
             double wantNominal = outPeak * Math.pow(10, thresholds.minHeadroomDb() / 20);
             String reason = "";
             if (!supplyFits(p)) {
-                reason = "the part is specified for " + Units.volts(p.supplyMinVolts()) + " to "
-                        + Units.volts(p.supplyMaxVolts()) + ", the supply runs from " + Units.volts(low) + " to "
-                        + Units.volts(supply.highVolts());
+                reason = "the part is specified for " + Quantities.volts(p.supplyMinVolts()) + " to "
+                        + Quantities.volts(p.supplyMaxVolts()) + ", the supply runs from " + Quantities.volts(low) + " to "
+                        + Quantities.volts(supply.highVolts());
             } else if (low / 2 - plusPeak < p.commonModeLowVolts() || low / 2 + plusPeak > low - p.commonModeHighVolts()) {
                 reason = "its inputs cannot reach mid-rail ± the signal peak at the end-point supply";
             } else if (roomNominal < wantNominal) {
-                reason = "at the nominal supply the output has " + Units.volts(roomNominal) + " of room for a "
-                        + Units.volts(outPeak) + " peak (" + Units.db(thresholds.minHeadroomDb()) + " headroom wanted)";
+                reason = "at the nominal supply the output has " + Quantities.volts(roomNominal) + " of room for a "
+                        + Quantities.volts(outPeak) + " peak (" + Quantities.db(thresholds.minHeadroomDb()) + " headroom wanted)";
             } else if (roomLow < outPeak) {
-                reason = "at the end-point supply the output has " + Units.volts(roomLow) + " of room for a "
-                        + Units.volts(outPeak) + " peak: it would clip";
+                reason = "at the end-point supply the output has " + Quantities.volts(roomLow) + " of room for a "
+                        + Quantities.volts(outPeak) + " peak: it would clip";
             }
             boolean hard = reason.isEmpty();
             double bandHigh = req.signal().bandHighHz();
@@ -374,9 +375,9 @@ public final class Converter {
                     double f = Math.pow(10, k);
                     if (r1 / f >= MIN_LEG_OHMS) {
                         changes.add(new Change(ChangeKind.RESISTORS_SCALED, path,
-                                "R1 " + Units.ohms(r1) + ", R2 " + Units.ohms(r2),
-                                "R1 " + Units.ohms(r1 / f) + ", R2 " + Units.ohms(r2 / f),
-                                s.name() + ": R2 above " + Units.ohms(thresholds.maxFeedbackOhms())
+                                "R1 " + Quantities.ohms(r1) + ", R2 " + Quantities.ohms(r2),
+                                "R1 " + Quantities.ohms(r1 / f) + ", R2 " + Quantities.ohms(r2 / f),
+                                s.name() + ": R2 above " + Quantities.ohms(thresholds.maxFeedbackOhms())
                                         + " (common practice) turns bias current into offset and adds noise;"
                                         + " both divided by " + (long) f + ", the gain stays "
                                         + String.format(java.util.Locale.ROOT, "%.4g", s.gain())));
@@ -384,9 +385,9 @@ public final class Converter {
                         r2 /= f;
                     } else {
                         changes.add(new Change(ChangeKind.KEPT_AGAINST_PRACTICE, path + ".feedbackOhms",
-                                Units.ohms(r2), Units.ohms(r2), s.name() + ": R2 is above "
-                                + Units.ohms(thresholds.maxFeedbackOhms()) + " (common practice), but scaling it down"
-                                + " would bring R1 below " + Units.ohms(MIN_LEG_OHMS) + "; kept"));
+                                Quantities.ohms(r2), Quantities.ohms(r2), s.name() + ": R2 is above "
+                                + Quantities.ohms(thresholds.maxFeedbackOhms()) + " (common practice), but scaling it down"
+                                + " would bring R1 below " + Quantities.ohms(MIN_LEG_OHMS) + "; kept"));
                     }
                 }
                 if (Math.abs(s.gain()) > thresholds.maxStageGain()) {
@@ -454,8 +455,8 @@ public final class Converter {
                 if (left <= 0) {
                     conflicts.add(new Conflict(ConflictKind.CURRENT_LIMIT_UNREACHABLE, "the op-amps' quiescent current",
                             "supply-current limit", budget.getAsDouble(), opAmpAmps, opAmpAmps - budget.getAsDouble(), "A",
-                            "the op-amps alone draw " + Units.amps(opAmpAmps) + ", more than the "
-                                    + Units.amps(budget.getAsDouble()) + " the current or runtime limit allows;"
+                            "the op-amps alone draw " + Quantities.amps(opAmpAmps) + ", more than the "
+                                    + Quantities.amps(budget.getAsDouble()) + " the current or runtime limit allows;"
                                     + " choose lower-power op-amps or relax the limit"));
                     dividerOhms = MAX_DIVIDER_OHMS;
                     forcedHigh = true;
@@ -476,11 +477,11 @@ public final class Converter {
                 if (b != null) {
                     buffer = OpAmpChoice.archetype(b.id());
                     changes.add(new Change(ChangeKind.REFERENCE_BUFFERED, "reference.buffer", "none", b.id(),
-                            "the current limit needs " + Units.ohms(dividerOhms) + " per divider resistor; the stages'"
-                                    + " bias current " + Units.amps(sumIb) + " through its " + Units.ohms(rth)
-                                    + " would shift the bias by " + Units.volts(sumIb * rth) + " (allowed "
-                                    + Units.volts(allowed) + "), so a " + b.displayName() + " (bias current "
-                                    + Units.amps(Math.abs(b.typical().biasAmps())) + ") buffers the divider"));
+                            "the current limit needs " + Quantities.ohms(dividerOhms) + " per divider resistor; the stages'"
+                                    + " bias current " + Quantities.amps(sumIb) + " through its " + Quantities.ohms(rth)
+                                    + " would shift the bias by " + Quantities.volts(sumIb * rth) + " (allowed "
+                                    + Quantities.volts(allowed) + "), so a " + b.displayName() + " (bias current "
+                                    + Quantities.amps(Math.abs(b.typical().biasAmps())) + ") buffers the divider"));
                 } else {
                     double wanted = dividerOhms;
                     double fitting = 2 * (allowed - maxIb * MIN_BIAS_OHMS) / sumIb;
@@ -490,12 +491,12 @@ public final class Converter {
                         double extra = supply.nominalVolts() / (2 * dividerOhms) - supply.nominalVolts() / (2 * wanted);
                         double achieved = opAmpAmps + supply.nominalVolts() / (2 * dividerOhms);
                         conflicts.add(new Conflict(ConflictKind.CURRENT_VERSUS_BIAS_SHIFT,
-                                "bias shift within " + Units.volts(allowed), "supply-current limit",
+                                "bias shift within " + Quantities.volts(allowed), "supply-current limit",
                                 budget.getAsDouble(), achieved, Math.max(0, achieved - budget.getAsDouble()), "A",
-                                "the stages' bias current " + Units.amps(sumIb) + " through a divider of "
-                                        + Units.ohms(wanted) + " per resistor would shift the bias by "
-                                        + Units.volts(sumIb * wanted / 2) + "; no buffer archetype fits, so the divider"
-                                        + " is lowered to " + Units.ohms(dividerOhms) + ", drawing " + Units.amps(extra)
+                                "the stages' bias current " + Quantities.amps(sumIb) + " through a divider of "
+                                        + Quantities.ohms(wanted) + " per resistor would shift the bias by "
+                                        + Quantities.volts(sumIb * wanted / 2) + "; no buffer archetype fits, so the divider"
+                                        + " is lowered to " + Quantities.ohms(dividerOhms) + ", drawing " + Quantities.amps(extra)
                                         + " more (estimated; the engine's figure is in the comparison)"));
                     }
                 }
@@ -624,8 +625,8 @@ public final class Converter {
                     parts.add(new Change(ChangeKind.LEG_CAPACITOR_ADDED, path + ".legCapacitor", "R1 to ground",
                             capText(leg), s.name() + ": blocks DC in the leg so the stage amplifies its bias by 1,"
                             + " not " + String.format(java.util.Locale.ROOT, "%.4g", g) + "; corner "
-                            + Units.hertz(k / (2 * Math.PI * r1 * leg.farads())) + " with R1 (target "
-                            + Units.hertz(each) + "); " + c.rule()));
+                            + Quantities.hertz(k / (2 * Math.PI * r1 * leg.farads())) + " with R1 (target "
+                            + Quantities.hertz(each) + "); " + c.rule()));
                 }
                 if (i == 0) {
                     double seen = rs + (s.kind() == StageKind.INVERTING ? r1 : biasOhms);
@@ -636,18 +637,18 @@ public final class Converter {
                     tau += seen * in.farads();
                     parts.add(new Change(ChangeKind.INPUT_CAPACITOR_ADDED, path + ".inputCapacitor", "DC-coupled",
                             capText(in), s.name() + ": the source rests at 0 V, the input at mid-rail; corner "
-                            + Units.hertz(1 / (2 * Math.PI * seen * in.farads())) + " with " + Units.ohms(seen)
-                            + " (target " + Units.hertz(each) + "); " + c.rule()));
+                            + Quantities.hertz(1 / (2 * Math.PI * seen * in.farads())) + " with " + Quantities.ohms(seen)
+                            + " (target " + Quantities.hertz(each) + "); " + c.rule()));
                 }
                 if (biasedFromReference(i) && (i == 0 || s.kind() == StageKind.INVERTING)) {
                     parts.add(new Change(ChangeKind.BIAS_RESISTOR_ADDED, "reference.biasOhms",
                             s.kind() == StageKind.INVERTING ? "+ input at ground" : "+ input at the source",
-                            Units.ohms(biasOhms), s.name() + ": brings the + input to the reference; "
-                            + Units.ohms(biasOhms) + " keeps the bias-current shift within "
-                            + Units.volts(BIAS_SHIFT_SHARE * thresholds.maxBiasShiftVolts())
+                            Quantities.ohms(biasOhms), s.name() + ": brings the + input to the reference; "
+                            + Quantities.ohms(biasOhms) + " keeps the bias-current shift within "
+                            + Quantities.volts(BIAS_SHIFT_SHARE * thresholds.maxBiasShiftVolts())
                             + (s.kind() == StageKind.INVERTING ? "" : " and is now the input resistance"
-                            + (rs > 0 ? ", which with the " + Units.ohms(rs) + " source costs "
-                            + Units.db(-20 * Math.log10(biasOhms / (biasOhms + rs))) + " of gain" : ""))));
+                            + (rs > 0 ? ", which with the " + Quantities.ohms(rs) + " source costs "
+                            + Quantities.db(-20 * Math.log10(biasOhms / (biasOhms + rs))) + " of gain" : ""))));
                 }
                 stages.add(new Stage(s.name(), s.kind(), opAmps.get(i), r2, r1, leg, in));
             }
@@ -656,8 +657,8 @@ public final class Converter {
             tau += req.loadOhms() * out.spec().farads();
             parts.add(new Change(ChangeKind.OUTPUT_CAPACITOR_ADDED, "load.outputCapacitor", "DC-coupled",
                     capText(out.spec()), "the last output rests at mid-rail, the load wants 0 V DC; corner "
-                    + Units.hertz(1 / (2 * Math.PI * req.loadOhms() * out.spec().farads())) + " with the "
-                    + Units.ohms(req.loadOhms()) + " load (target " + Units.hertz(each) + "); " + out.rule()));
+                    + Quantities.hertz(1 / (2 * Math.PI * req.loadOhms() * out.spec().farads())) + " with the "
+                    + Quantities.ohms(req.loadOhms()) + " load (target " + Quantities.hertz(each) + "); " + out.rule()));
 
             double refCorner = targetHz / REFERENCE_CORNER_FACTOR;
             CapacitorRules.Choice cref = CapacitorRules.choose(scale / (2 * Math.PI * rth * refCorner),
@@ -665,17 +666,17 @@ public final class Converter {
             tau += rth * cref.spec().farads();
             Reference reference;
             double refFraction = lowerOhms / (upperOhms + lowerOhms);
-            String refText = "divider " + Units.ohms(upperOhms) + " + " + Units.ohms(lowerOhms) + ", "
+            String refText = "divider " + Quantities.ohms(upperOhms) + " + " + Quantities.ohms(lowerOhms) + ", "
                     + capText(cref.spec());
-            String refWhy = (upperOhms == lowerOhms ? "mid-rail " + Units.volts(supply.nominalVolts() / 2)
+            String refWhy = (upperOhms == lowerOhms ? "mid-rail " + Quantities.volts(supply.nominalVolts() / 2)
                     + " from two equal resistors (E24),"
-                    : Units.volts(refFraction * supply.nominalVolts()) + " (" + String.format(java.util.Locale.ROOT,
+                    : Quantities.volts(refFraction * supply.nominalVolts()) + " (" + String.format(java.util.Locale.ROOT,
                     "%.0f %%", 100 * refFraction) + " of the rail) from two E24 resistors, at the centre of the"
                     + " op-amps' output window at the end-point supply rather than at mid-rail (" + centring
                     + "; at the nominal supply it then sits off the window's centre, which the checks note),")
-                    + " drawing " + Units.amps(supply.nominalVolts() / (upperOhms + lowerOhms))
-                    + (currentBudget.isPresent() ? " within the current budget " + Units.amps(currentBudget.getAsDouble())
-                    : "") + "; decoupled at " + Units.hertz(1 / (2 * Math.PI * rth * cref.spec().farads()))
+                    + " drawing " + Quantities.amps(supply.nominalVolts() / (upperOhms + lowerOhms))
+                    + (currentBudget.isPresent() ? " within the current budget " + Quantities.amps(currentBudget.getAsDouble())
+                    : "") + "; decoupled at " + Quantities.hertz(1 / (2 * Math.PI * rth * cref.spec().farads()))
                     + ", a decade below the band, so supply noise and ripple stay off the inputs; " + cref.rule();
             if (buffer == null) {
                 reference = Reference.decoupled(upperOhms, lowerOhms, cref.spec(), biasOhms);
@@ -685,21 +686,21 @@ public final class Converter {
                 tau += ISOLATION_OHMS * cb.spec().farads();
                 reference = Reference.buffered(upperOhms, lowerOhms, cref.spec(), biasOhms, buffer, ISOLATION_OHMS,
                         cb.spec());
-                refText += "; buffered, " + Units.ohms(ISOLATION_OHMS) + " into " + capText(cb.spec());
-                refWhy += "; the buffer's " + Units.ohms(ISOLATION_OHMS) + " isolation keeps it stable into "
+                refText += "; buffered, " + Quantities.ohms(ISOLATION_OHMS) + " into " + capText(cb.spec());
+                refWhy += "; the buffer's " + Quantities.ohms(ISOLATION_OHMS) + " isolation keeps it stable into "
                         + capText(cb.spec()) + " (" + cb.rule() + ")";
             }
             parts.add(0, new Change(ChangeKind.REFERENCE_ADDED, "reference", "ground", refText, refWhy));
             Load load = new Load(req.loadOhms(), req.loadFarads(), out.spec());
-            String description = "Converted from a dual-rail original on +" + Units.volts(original.positiveVolts())
-                    + "/−" + Units.volts(original.negativeVolts()) + " by Halfrail's conversion assistant.";
+            String description = "Converted from a dual-rail original on +" + Quantities.volts(original.positiveVolts())
+                    + "/−" + Quantities.volts(original.negativeVolts()) + " by Halfrail's conversion assistant.";
             Design design = new Design(req.name(), description, supply, reference, stages, req.signal(), load,
                     thresholds, Design.DEFAULT_POWER_ON_RAMP_SECONDS);
             return new Build(design, tau, parts);
         }
 
         private static String capText(CapacitorSpec c) {
-            return Units.farads(c.farads()) + " " + c.technology() + " " + Units.volts(c.ratedVolts());
+            return Quantities.farads(c.farads()) + " " + c.technology() + " " + Quantities.volts(c.ratedVolts());
         }
 
         // ---------------------------------------------------------------- limits
@@ -732,7 +733,7 @@ public final class Converter {
             TradeOffPoint fastEnough = curve.stream().filter(TradeOffPoint::meetsSettle)
                     .filter(p -> p.lowerCornerHz().isPresent())
                     .min(Comparator.comparingDouble(p -> p.lowerCornerHz().getAsDouble())).orElse(null);
-            String cornerText = corner.isPresent() ? Units.hertz(corner.getAsDouble()) : "below the range";
+            String cornerText = corner.isPresent() ? Quantities.hertz(corner.getAsDouble()) : "below the range";
             if (req.limits().priority() == LimitPriority.BAND || fastEnough == null) {
                 double achieved = settle.atLeast();
                 TradeOffPoint fastest = curve.stream().filter(p -> p.settleSeconds().isPresent())
@@ -740,19 +741,19 @@ public final class Converter {
                 String price = fastEnough == null ? (fastest == null ? "no point of the trade-off curve settles"
                         : "no point of the trade-off curve meets the limit: even capacitors "
                         + String.format(java.util.Locale.ROOT, "%.3g", fastest.capacitanceScale())
-                        + " times these (corner " + fastest.lowerCornerHz().stream().mapToObj(Units::hertz)
-                        .findFirst().orElse("none") + ") take " + Units.seconds(fastest.settleSeconds().getAsDouble()))
+                        + " times these (corner " + fastest.lowerCornerHz().stream().mapToObj(Quantities::hertz)
+                        .findFirst().orElse("none") + ") take " + Quantities.seconds(fastest.settleSeconds().getAsDouble()))
                         : "meeting it would need capacitors about " + String.format(java.util.Locale.ROOT, "%.3g",
                         fastEnough.capacitanceScale()) + " times these, moving the corner to "
-                        + Units.hertz(fastEnough.lowerCornerHz().getAsDouble()) + ", "
-                        + Units.hertz(fastEnough.lowerCornerHz().getAsDouble() - bandLow) + " above the band's low end";
+                        + Quantities.hertz(fastEnough.lowerCornerHz().getAsDouble()) + ", "
+                        + Quantities.hertz(fastEnough.lowerCornerHz().getAsDouble() - bandLow) + " above the band's low end";
                 conflicts.add(new Conflict(ConflictKind.CORNER_VERSUS_SETTLE,
-                        "band low end " + Units.hertz(bandLow) + " (corner " + cornerText + ")",
-                        "settle-up limit " + Units.seconds(limit), limit, achieved, achieved - limit, "s",
+                        "band low end " + Quantities.hertz(bandLow) + " (corner " + cornerText + ")",
+                        "settle-up limit " + Quantities.seconds(limit), limit, achieved, achieved - limit, "s",
                         "a corner of " + cornerText + " needs time constants that settle in "
-                                + (settle.seconds().isPresent() ? Units.seconds(achieved) : "more than " + Units.seconds(achieved))
-                                + ", missing the " + Units.seconds(limit) + " limit by "
-                                + (settle.seconds().isPresent() ? "" : "at least ") + Units.seconds(achieved - limit)
+                                + (settle.seconds().isPresent() ? Quantities.seconds(achieved) : "more than " + Quantities.seconds(achieved))
+                                + ", missing the " + Quantities.seconds(limit) + " limit by "
+                                + (settle.seconds().isPresent() ? "" : "at least ") + Quantities.seconds(achieved - limit)
                                 + "; the band wins" + (req.limits().priority() == LimitPriority.SETTLE
                                 ? " because nothing on the curve settles in time" : "") + "; " + price));
                 return chosen;
@@ -761,16 +762,16 @@ public final class Converter {
             Build fast = build(fastEnough.targetCornerHz(), scale);
             double fastCorner = fastEnough.lowerCornerHz().getAsDouble();
             List<Change> parts = new ArrayList<>(fast.partChanges());
-            parts.add(new Change(ChangeKind.CAPACITORS_REDUCED_FOR_SETTLE, "", "sized for " + Units.hertz(bandLow),
-                    "sized for " + Units.hertz(fastEnough.targetCornerHz()),
+            parts.add(new Change(ChangeKind.CAPACITORS_REDUCED_FOR_SETTLE, "", "sized for " + Quantities.hertz(bandLow),
+                    "sized for " + Quantities.hertz(fastEnough.targetCornerHz()),
                     String.format(java.util.Locale.ROOT, "capacitors ×%.3g", factor) + " so that settle-up takes "
-                            + Units.seconds(fastEnough.settleSeconds().getAsDouble()) + ", within "
-                            + Units.seconds(limit)));
-            conflicts.add(new Conflict(ConflictKind.CORNER_VERSUS_SETTLE, "settle-up limit " + Units.seconds(limit),
-                    "band low end " + Units.hertz(bandLow), bandLow, fastCorner, fastCorner - bandLow, "Hz",
+                            + Quantities.seconds(fastEnough.settleSeconds().getAsDouble()) + ", within "
+                            + Quantities.seconds(limit)));
+            conflicts.add(new Conflict(ConflictKind.CORNER_VERSUS_SETTLE, "settle-up limit " + Quantities.seconds(limit),
+                    "band low end " + Quantities.hertz(bandLow), bandLow, fastCorner, fastCorner - bandLow, "Hz",
                     "meeting the band (corner " + cornerText + ") would take "
-                            + Units.seconds(settle.atLeast()) + " to settle; the settle-up limit wins, and the chain's"
-                            + " corner rises to " + Units.hertz(fastCorner) + ", " + Units.hertz(fastCorner - bandLow)
+                            + Quantities.seconds(settle.atLeast()) + " to settle; the settle-up limit wins, and the chain's"
+                            + " corner rises to " + Quantities.hertz(fastCorner) + ", " + Quantities.hertz(fastCorner - bandLow)
                             + " above the band's low end"));
             return new Build(fast.design(), fast.timeConstantSumSeconds(), parts);
         }
@@ -786,8 +787,8 @@ public final class Converter {
             if (total > budget && !reported) {
                 conflicts.add(new Conflict(ConflictKind.CURRENT_LIMIT_UNREACHABLE, "the circuit as converted",
                         "supply-current limit", budget, total, total - budget, "A",
-                        "the engine finds " + Units.amps(total) + " drawn at the nominal supply, "
-                                + Units.amps(total - budget) + " over the " + Units.amps(budget) + " budget"));
+                        "the engine finds " + Quantities.amps(total) + " drawn at the nominal supply, "
+                                + Quantities.amps(total - budget) + " over the " + Quantities.amps(budget) + " budget"));
             }
         }
 

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.circuit.OpAmpParams;
 import halfrail.design.AmplitudeUnit;
 import halfrail.design.CapacitorSpec;
@@ -110,15 +111,15 @@ class FindingCatalogueTest {
         Finding rail = only(r, RestsOnRail.CODE);
         assertEquals(Severity.FAIL, rail.severity());
         assertEquals(List.of("stages[0]"), rail.parts());
-        assertCarries(rail, Text.volts(s.outputVolts()), Text.volts(s.nominal().swingHighVolts()));
+        assertCarries(rail, Quantities.volts(s.outputVolts()), Quantities.volts(s.nominal().swingHighVolts()));
         Finding amp = only(r, BiasAmplified.CODE);
         assertEquals(Severity.FAIL, amp.severity());
         assertEquals(List.of("stages[0].legCapacitor", "stages[0].legOhms"), amp.parts());
         // Bias gain of a non-inverting stage with R1 to ground: 1 + R2/R1 = 1 + 47k/4.7k = 11 (any op-amp text).
         assertEquals(11.0, s.biasGain(), 0.01);
-        assertCarries(amp, "11.0", Text.volts(s.outputVolts()));
+        assertCarries(amp, "11.0", Quantities.volts(s.outputVolts()));
         // Suggested blocking capacitor: corner 5× below 20 Hz, 5/(2π·4.7 kΩ·20 Hz) = 8.5 µF → E6 10 µF (IEC 60063).
-        assertTrue(amp.suggestion().contains(Text.farads(10e-6)), amp.suggestion());
+        assertTrue(amp.suggestion().contains(Quantities.farads(10e-6)), amp.suggestion());
         // Saturated: the headroom checks leave it to REST_ON_RAIL rather than report it twice.
         assertTrue(r.findings(Headroom.CLIPS).isEmpty(), r.findings()::toString);
         assertTrue(healthy.findings(RestsOnRail.CODE).isEmpty());
@@ -137,7 +138,7 @@ class FindingCatalogueTest {
         // lost = 20·log10((window/2) / room above) = 20·log10(3.74 / 3.0) = 1.92 dB.
         double lost = 20 * Math.log10((n.swingHighVolts() - n.swingLowVolts()) / 2 / n.availableHighVolts());
         assertEquals(20 * Math.log10(3.74 / 3.0), lost, 0.03);
-        assertCarries(f, Text.db(lost), Text.volts(n.quiescentVolts()));
+        assertCarries(f, Quantities.db(lost), Quantities.volts(n.quiescentVolts()));
         assertTrue(healthy.findings(OffCentre.CODE).isEmpty());
     }
 
@@ -151,7 +152,7 @@ class FindingCatalogueTest {
         // 0.5 V × 11 = 5.5 V peak against 7.5 − 3.6 = 3.9 V of room above the rest point.
         assertEquals(5.5, n.signalPeakVolts(), 0.15);
         assertTrue(n.clips());
-        assertCarries(f, Text.volts(n.signalPeakVolts()), Text.db(n.headroomDb().getAsDouble()));
+        assertCarries(f, Quantities.volts(n.signalPeakVolts()), Quantities.db(n.headroomDb().getAsDouble()));
         assertTrue(healthy.findings(Headroom.CLIPS).isEmpty());
     }
 
@@ -163,7 +164,7 @@ class FindingCatalogueTest {
         assertEquals(List.of("stages[0]"), f.parts());
         double db = r.stages().get(0).nominal().headroomDb().getAsDouble();
         assertTrue(db >= 0 && db < 3, "headroom " + db);
-        assertCarries(f, Text.db(db));
+        assertCarries(f, Quantities.db(db));
         assertTrue(healthy.findings(Headroom.LOW).isEmpty());
     }
 
@@ -177,7 +178,7 @@ class FindingCatalogueTest {
         SwingReport end = r.stages().get(0).endPoint();
         // 9 V block end-point: six cells at 0.9 V = 5.4 V (IEC 60086-2 via secondary sources).
         assertEquals(5.4, end.supplyVolts(), 1e-9);
-        assertCarries(f, Text.volts(5.4), Text.volts(end.largestSourcePeakVolts().getAsDouble()));
+        assertCarries(f, Quantities.volts(5.4), Quantities.volts(end.largestSourcePeakVolts().getAsDouble()));
         assertTrue(healthy.findings(Headroom.END_POINT).isEmpty());
     }
 
@@ -206,7 +207,7 @@ class FindingCatalogueTest {
         assertEquals(Severity.FAIL, f.severity());
         assertEquals(List.of("stages[0].opAmp"), f.parts());
         assertEquals(LadderLevel.COMMON_MODE_LOW, f.level().orElseThrow());
-        assertCarries(f, Text.volts(s.inPlusVolts()), Text.volts(s.commonModeLowVolts()));
+        assertCarries(f, Quantities.volts(s.inPlusVolts()), Quantities.volts(s.commonModeLowVolts()));
         assertTrue(healthy.findings(CommonMode.CODE).isEmpty());
     }
 
@@ -223,7 +224,7 @@ class FindingCatalogueTest {
         // 4.5 V − 1.2 V × 100k/101k ≈ 3.31 V, below 3.5 V.
         double dip = s.inPlusVolts() - s.inputSignalPeakVolts();
         assertEquals(4.5 - 1.2 * 100e3 / 101e3, dip, 0.02);
-        assertCarries(f, Text.volts(dip), Text.volts(s.commonModeLowVolts()));
+        assertCarries(f, Quantities.volts(dip), Quantities.volts(s.commonModeLowVolts()));
         assertTrue(r.findings(Headroom.CLIPS).isEmpty(), "the follower's output still fits: " + r.findings());
     }
 
@@ -235,7 +236,7 @@ class FindingCatalogueTest {
         assertEquals(Severity.WARN, f.severity());
         assertEquals(List.of("stages[0].legCapacitor"), f.parts());
         StageReport s = r.stages().get(0);
-        assertCarries(f, Text.volts(s.leakageDriftVolts()), Text.volts(s.leakageDriftByCapacitor().get("CLEG1")));
+        assertCarries(f, Quantities.volts(s.leakageDriftVolts()), Quantities.volts(s.leakageDriftByCapacitor().get("CLEG1")));
         assertTrue(s.leakageDriftVolts() > 0.1);
         assertFalse(r.findings(CommonPractice.FEEDBACK).isEmpty(), "R2 of 1 MΩ is also above 100 kΩ");
         assertTrue(healthy.findings(LeakageDrift.CODE).isEmpty());
@@ -256,7 +257,7 @@ class FindingCatalogueTest {
         CapacitorReport c = r.capacitors().stream().filter(x -> x.element().equals("CIN2")).findFirst().orElseThrow();
         double ref = r.nodeVolts().get("ref");
         assertEquals(ref - ref * (1 + 10e3 / 47e3), c.dcVolts(), 0.03);
-        assertCarries(f, Text.volts(-c.dcVolts()));
+        assertCarries(f, Quantities.volts(-c.dcVolts()));
         assertTrue(r.findings(BiasAmplified.CODE).isEmpty(), "a bias gain of 1.2 is not yet amplified bias");
         assertTrue(healthy.findings(CapacitorVoltage.REVERSED).isEmpty());
     }
@@ -274,7 +275,7 @@ class FindingCatalogueTest {
         // band), about 4 V: it needs 8 V or more, and the next standard tantalum rating is 10 V.
         assertEquals(2.0, c.deratedVolts(), 1e-12);
         assertEquals(3.84 + c.signalPeakVolts(), c.worstVolts(), 0.02);
-        assertCarries(f, Text.volts(c.worstVolts()), Text.volts(c.deratedVolts()), Text.volts(10));
+        assertCarries(f, Quantities.volts(c.worstVolts()), Quantities.volts(c.deratedVolts()), Quantities.volts(10));
         assertTrue(healthy.findings(CapacitorVoltage.OVER).isEmpty());
     }
 
@@ -285,12 +286,12 @@ class FindingCatalogueTest {
         assertEquals(Severity.WARN, f.severity());
         assertEquals(List.of("stages[0].inputCapacitor"), f.parts());
         ChainReport ch = r.chain().orElseThrow();
-        assertCarries(f, Text.hertz(ch.lowerCornerHz().getAsDouble()), Text.hertz(20));
+        assertCarries(f, Quantities.hertz(ch.lowerCornerHz().getAsDouble()), Quantities.hertz(20));
         // 1/(2π·(1 kΩ + 100 kΩ)·10 nF) = 157.6 Hz (any circuits text).
         assertEquals(157.6, ch.lowerCornerHz().getAsDouble(), 3);
         // The remedy moves that capacitor's corner 5× below 20 Hz: 10 nF × 157.6 Hz × 5 / 20 Hz = 394 nF,
         // the next E6 value 470 nF (IEC 60063).
-        assertTrue(f.suggestion().contains(Text.farads(470e-9)), f.suggestion());
+        assertTrue(f.suggestion().contains(Quantities.farads(470e-9)), f.suggestion());
         assertTrue(healthy.findings(Bandwidth.LOW_CORNER).isEmpty());
     }
 
@@ -308,7 +309,7 @@ class FindingCatalogueTest {
         double upper = r.chain().orElseThrow().upperCornerHz().getAsDouble();
         // Closed-loop bandwidth ≈ GBW / noise gain = 100 kHz / 11 = 9.1 kHz (any op-amp text).
         assertEquals(100e3 / 11, upper, 100e3 / 11 * 0.05);
-        assertCarries(f, Text.hertz(upper), Text.hertz(20e3));
+        assertCarries(f, Quantities.hertz(upper), Quantities.hertz(20e3));
         assertTrue(healthy.findings(Bandwidth.UPPER).isEmpty());
     }
 
@@ -323,7 +324,7 @@ class FindingCatalogueTest {
         // Full-power bandwidth SR/(2π·Vpeak) (Franco, Design with Operational Amplifiers — from memory).
         double fp = 3e4 / (2 * Math.PI * s.nominal().signalPeakVolts());
         assertEquals(fp, s.fullPowerHz().getAsDouble(), fp * 1e-9);
-        assertCarries(f, Text.hertz(fp));
+        assertCarries(f, Quantities.hertz(fp));
         assertTrue(r.findings(Bandwidth.UPPER).isEmpty(), "the small-signal bandwidth is not affected");
         assertTrue(healthy.findings(Bandwidth.SLEW).isEmpty());
     }
@@ -339,7 +340,7 @@ class FindingCatalogueTest {
         // Ib·R: the PNP input draws 45 nA − 5/2 nA = 42.5 nA out of the + pin through 2.2 MΩ + 60 kΩ:
         // +96 mV (op-amp texts, e.g. Eggleston §6.4).
         assertEquals(42.5e-9 * (2.2e6 + 60e3), s.biasCurrentShiftVolts(), 2e-3);
-        assertCarries(f, Text.volts(s.biasCurrentShiftVolts()));
+        assertCarries(f, Quantities.volts(s.biasCurrentShiftVolts()));
         assertTrue(healthy.findings(BiasShift.CODE).isEmpty());
     }
 
@@ -361,7 +362,7 @@ class FindingCatalogueTest {
         PowerOnReport p = r.powerOn().orElseThrow();
         assertTrue(p.settled());
         assertTrue(p.settleSeconds().getAsDouble() > 2, p::toString);
-        assertCarries(f, Text.seconds(p.settleSeconds().getAsDouble()), Text.volts(p.bandVolts()), Text.seconds(2));
+        assertCarries(f, Quantities.seconds(p.settleSeconds().getAsDouble()), Quantities.volts(p.bandVolts()), Quantities.seconds(2));
         assertTrue(healthy.findings(PowerOn.SLOW).isEmpty());
     }
 
@@ -375,7 +376,7 @@ class FindingCatalogueTest {
         assertFalse(p.settled());
         assertTrue(p.settleSeconds().isEmpty());
         assertEquals(10.0, p.simulatedSeconds(), 1e-6);
-        assertCarries(f, Text.volts(p.bandVolts()), Text.seconds(p.simulatedSeconds()));
+        assertCarries(f, Quantities.volts(p.bandVolts()), Quantities.seconds(p.simulatedSeconds()));
     }
 
     @Test
@@ -388,7 +389,7 @@ class FindingCatalogueTest {
         assertEquals(List.of("stages[0]"), f.parts());
         double pinned = r.powerOn().orElseThrow().pinnedSeconds().get("boost");
         assertTrue(pinned > 0.1, "pinned " + pinned);
-        assertCarries(f, Text.seconds(pinned));
+        assertCarries(f, Quantities.seconds(pinned));
     }
 
     @Test
@@ -403,7 +404,7 @@ class FindingCatalogueTest {
         assertEquals(List.of("load.outputCapacitor"), f.parts());
         double step = r.powerOn().orElseThrow().loadStepVolts();
         assertTrue(step > 1, "step " + step);
-        assertCarries(f, Text.volts(step));
+        assertCarries(f, Quantities.volts(step));
         assertTrue(healthy.findings(PowerOn.STEP).isEmpty());
     }
 
@@ -416,7 +417,7 @@ class FindingCatalogueTest {
         double step = r.powerOn().orElseThrow().loadStepVolts();
         assertEquals(r.stages().get(0).outputVolts(), step, 0.01);
         assertEquals(3.6, step, 0.05);
-        assertCarries(f, Text.volts(step));
+        assertCarries(f, Quantities.volts(step));
     }
 
     @Test
@@ -426,7 +427,7 @@ class FindingCatalogueTest {
         assertEquals(Severity.WARN, f.severity());
         assertEquals(List.of("stages[0].feedbackOhms"), f.parts());
         // Scaled to the 100 kΩ ceiling (common practice) and rounded to E24 (IEC 60063): 100k and 10k.
-        assertCarries(f, Text.ohms(220e3), Text.ohms(100e3), Text.ohms(10e3));
+        assertCarries(f, Quantities.ohms(220e3), Quantities.ohms(100e3), Quantities.ohms(10e3));
         assertTrue(healthy.findings(CommonPractice.FEEDBACK).isEmpty());
     }
 
@@ -455,7 +456,7 @@ class FindingCatalogueTest {
         assertEquals(List.of("stages[0].opAmp", "supply"), f.parts());
         // Two alkaline AA cells: 1.8 V at the 0.9 V end-point to 3.2 V fresh (IEC 60086-2, secondary
         // sources), against the class's 10 V minimum (The Art of Electronics, 3rd ed., ch. 4 — memory).
-        assertCarries(f, Text.volts(1.8), Text.volts(3.2));
+        assertCarries(f, Quantities.volts(1.8), Quantities.volts(3.2));
         assertFalse(r.stages().get(0).supplyInRange());
         assertTrue(healthy.findings(SupplyAndRuntime.RANGE).isEmpty());
     }
@@ -475,7 +476,7 @@ class FindingCatalogueTest {
         double hours = 0.55 / b.totalAmps();
         assertEquals(hours, b.runtimeHours().getAsDouble(), 1e-9);
         assertEquals(0.5e-3 + 9 / 250e3, b.totalAmps(), 0.02e-3);
-        assertCarries(f, String.format(java.util.Locale.ROOT, "%.3g h", hours), Text.amps(b.totalAmps()));
+        assertCarries(f, String.format(java.util.Locale.ROOT, "%.3g h", hours), Quantities.amps(b.totalAmps()));
         assertTrue(healthy.findings(SupplyAndRuntime.RUNTIME).isEmpty());
     }
 
@@ -525,7 +526,7 @@ class FindingCatalogueTest {
         assertEquals(Severity.FAIL, only(r, DesignAnalysis.ANALYSIS_FAILED).severity());
         Finding range = only(r, SupplyAndRuntime.RANGE);
         assertEquals(List.of("stages[0].opAmp", "supply"), range.parts());
-        assertCarries(range, Text.volts(1.0), Text.volts(1.4));
+        assertCarries(range, Quantities.volts(1.0), Quantities.volts(1.4));
         assertTrue(r.stages().isEmpty() && r.capacitors().isEmpty());
     }
 
@@ -539,10 +540,10 @@ class FindingCatalogueTest {
         StageReport s = r.stages().get(0);
         assertTrue(s.nominal().swingHighVolts() < s.nominal().swingLowVolts());
         Finding rail = only(r, RestsOnRail.CODE);
-        assertCarries(rail, Text.volts(1.2));
-        assertFalse(rail.message().contains(Text.volts(s.nominal().swingHighVolts())), rail.message());
+        assertCarries(rail, Quantities.volts(1.2));
+        assertFalse(rail.message().contains(Quantities.volts(s.nominal().swingHighVolts())), rail.message());
         Finding cm = only(r, CommonMode.CODE);
-        assertCarries(cm, Text.volts(s.commonModeLowVolts()), Text.volts(s.commonModeHighVolts()));
+        assertCarries(cm, Quantities.volts(s.commonModeLowVolts()), Quantities.volts(s.commonModeHighVolts()));
         assertFalse(only(r, SupplyAndRuntime.RANGE).parts().isEmpty());
     }
 

@@ -1,5 +1,6 @@
 package halfrail.check;
 
+import halfrail.units.Quantities;
 import halfrail.circuit.OpAmpParams;
 import halfrail.design.AmplitudeUnit;
 import halfrail.design.CapacitorSpec;
@@ -248,7 +249,7 @@ class TemplateFormulaTest {
         Finding f = FindingCatalogueTest.only(direct, Ripple.CODE);
         assertEquals(Severity.WARN, f.severity());
         assertEquals(List.of("reference"), f.parts());
-        FindingCatalogueTest.assertCarries(f, Text.volts(ch.rippleAtLoadVolts()), Text.volts(0.05), Text.hertz(100));
+        FindingCatalogueTest.assertCarries(f, Quantities.volts(ch.rippleAtLoadVolts()), Quantities.volts(0.05), Quantities.hertz(100));
         assertTrue(f.suggestion().contains("decouple"), f.suggestion());
 
         DesignReport decoupled = analysed(rippleDesign(Reference.decoupled(ra, rb, film(10e-6), 100e3)),
