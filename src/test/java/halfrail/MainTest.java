@@ -40,4 +40,9 @@ class MainTest {
         assertFalse(Main.opensADesign(new String[] {"samples/no-such-design.json"}));
         assertFalse(Main.opensADesign(new String[] {"--help"}));
     }
+
+    @Test
+    void theAppAndTheCommandLineGiveTheSameVersion() {
+        assertEquals(halfrail.cli.HalfrailCommand.VERSION, halfrail.ui.HalfrailApp.VERSION);
+    }
 }

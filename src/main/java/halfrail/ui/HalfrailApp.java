@@ -15,6 +15,9 @@ import java.util.Optional;
  * needs no JavaFX on its own class path.
  */
 public class HalfrailApp extends Application {
+    /** The version written into exported reviews (the command line's {@code --version} says the same). */
+    public static final String VERSION = "0.1.0-SNAPSHOT";
+
     /** Width of the main window when it opens, px. */
     public static final double WINDOW_WIDTH = 1440;
     /** Height of the main window when it opens, px. */

@@ -429,6 +429,25 @@ public final class WorkbenchModel {
                 e -> status.set("Could not write " + what + ": " + e.getMessage()));
     }
 
+    /**
+     * Write a review of the analysed design (HTML and PDF, see halfrail.io.report) next to
+     * {@code path} in the background: {@code path} with its ending replaced by .html and .pdf.
+     * Nothing is written before the first analysis has come back.
+     */
+    public void exportReview(Path path, String toolVersion) {
+        DesignReport r = report.get();
+        if (r == null) {
+            status.set("Nothing to report yet: the analysis is still running");
+            return;
+        }
+        String source = file.get() == null ? r.design().name() : file.get().toString();
+        halfrail.io.report.Review review = new halfrail.io.report.Review(
+                java.util.List.of(new halfrail.io.report.ReviewEntry(source, r)), toolVersion, java.time.Instant.now());
+        executor.submit(() -> halfrail.io.report.ReviewFiles.write(review, path),
+                w -> status.set("Wrote the review to " + w.html().getFileName() + " and " + w.pdf().getFileName()),
+                e -> status.set("Could not write the review: " + e.getMessage()));
+    }
+
     /** Write the readings and figures as CSV to {@code path} in the background. */
     public void exportReadings(Path path) {
         String text = readings.csv();

@@ -226,14 +226,16 @@ public final class WorkbenchView extends BorderPane {
         tradeCsv.setOnAction(e -> exportCsv("the battery trade-off", "battery-tradeoff.csv", () -> model.tradeoff().csv()));
         MenuItem mcCsv = new MenuItem("Export the Monte Carlo histograms as CSV…");
         mcCsv.setOnAction(e -> exportCsv("the Monte Carlo histograms", "monte-carlo.csv", () -> model.monteCarlo().csv()));
+        MenuItem review = new MenuItem("Export a review (HTML and PDF)…");
+        review.setOnAction(e -> exportReview());
         MenuItem window = new MenuItem("Save a picture of the window…");
         window.setOnAction(e -> savePicture(this, "halfrail-window.png"));
         Menu tables = new Menu("Export a table as CSV");
         tables.getItems().addAll(csv, powerCsv, responseCsv, tradeCsv, mcCsv);
         Menu pictures = new Menu("Save a picture (PNG)");
         pictures.getItems().addAll(picture, plot, powerPicture, responsePicture, tradePicture, mcPicture, window);
-        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), tables,
-                pictures, new SeparatorMenuItem(), quit);
+        design.getItems().addAll(fresh, samples, new SeparatorMenuItem(), open, recent, save, saveAs, new SeparatorMenuItem(), review,
+                tables, pictures, new SeparatorMenuItem(), quit);
 
         Menu edit = new Menu("Edit");
         MenuItem undo = new MenuItem();
@@ -306,6 +308,17 @@ public final class WorkbenchView extends BorderPane {
         File f = chooser("Save the design").showSaveDialog(window());
         if (f != null) {
             model.saveAs(f.toPath());
+        }
+    }
+
+    private void exportReview() {
+        FileChooser c = new FileChooser();
+        c.setTitle("Export a review");
+        c.setInitialFileName("review.html");
+        c.getExtensionFilters().add(new FileChooser.ExtensionFilter("HTML and PDF", "*.html", "*.pdf"));
+        File f = c.showSaveDialog(window());
+        if (f != null) {
+            model.exportReview(f.toPath(), HalfrailApp.VERSION);
         }
     }
 

@@ -391,4 +391,19 @@ class WorkbenchModelTest {
         assertTrue(m.statusProperty().get().startsWith("Could not open missing.json"), m.statusProperty().get());
         assertEquals(saved, m.design(), "a failed open keeps the design");
     }
+
+    @Test
+    void exportingAReviewWritesTheHtmlAndPdfOfTheAnalysedDesign(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir)
+            throws java.io.IOException {
+        model.exportReview(dir.resolve("review.html"), HalfrailApp.VERSION);
+        java.nio.file.Path html = dir.resolve("review.html");
+        java.nio.file.Path pdf = dir.resolve("review.pdf");
+        assertTrue(java.nio.file.Files.isRegularFile(html) && java.nio.file.Files.isRegularFile(pdf));
+        String text = java.nio.file.Files.readString(html);
+        String stage = model.reportProperty().get().stages().stream()
+                .filter(halfrail.check.StageReport::signal).findFirst().orElseThrow().label();
+        assertTrue(text.contains(stage), "the review names the stage");
+        assertTrue(java.nio.file.Files.readAllBytes(pdf).length > 1000 && new String(
+                java.nio.file.Files.readAllBytes(pdf), 0, 5, java.nio.charset.StandardCharsets.US_ASCII).equals("%PDF-"));
+    }
 }
