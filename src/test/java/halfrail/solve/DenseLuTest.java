@@ -114,25 +114,4 @@ class DenseLuTest {
             assertEquals(false, new LUDecomposition(new Array2DRowRealMatrix(a)).getSolver().isNonSingular());
         }
     }
-
-    @Test
-    void nonFiniteEntriesAreReportedAsSingular() {
-        for (double bad : new double[] {Double.NaN, Double.POSITIVE_INFINITY}) {
-            double[][] a = {{1, 0}, {0, bad}};
-            AnalysisException e = assertThrows(AnalysisException.class, () -> new DenseLu().factor(a, 2));
-            assertEquals(AnalysisException.Kind.SINGULAR, e.kind());
-        }
-    }
-
-    @Test
-    void solverWorksOnTheLeadingBlockOfALargerArray() {
-        double[][] a = {{2, 1, 99}, {1, 3, 99}, {99, 99, 99}};
-        DenseLu lu = new DenseLu();
-        lu.factor(a, 2);
-        double[] x = {3, 5, 77};
-        lu.solve(x);
-        assertEquals(0.8, x[0], 1e-14);
-        assertEquals(1.4, x[1], 1e-14);
-        assertEquals(77, x[2]);
-    }
 }

@@ -232,27 +232,6 @@ class SparseLuTest {
     }
 
     @Test
-    void nonFiniteEntriesAreReportedAsSingular() {
-        for (double bad : new double[] {Double.NaN, Double.POSITIVE_INFINITY}) {
-            double[][] a = {{1, 0}, {0, bad}};
-            AnalysisException e = assertThrows(AnalysisException.class, () -> new SparseLu().factor(a, 2));
-            assertEquals(AnalysisException.Kind.SINGULAR, e.kind());
-        }
-    }
-
-    @Test
-    void solverWorksOnTheLeadingBlockOfALargerArray() {
-        double[][] a = {{2, 1, 99}, {1, 3, 99}, {99, 99, 99}};
-        SparseLu lu = new SparseLu();
-        lu.factor(a, 2);
-        double[] x = {3, 5, 77};
-        lu.solve(x);
-        assertEquals(0.8, x[0], 1e-14);
-        assertEquals(1.4, x[1], 1e-14);
-        assertEquals(77, x[2]);
-    }
-
-    @Test
     @DisplayName("the solvers choose dense below the named size and sparse from it on")
     void solverChoiceFollowsTheNamedThreshold() {
         assertTrue(LinearSolvers.forSize(LinearSolvers.SPARSE_FROM_UNKNOWNS - 1) instanceof DenseLu);
