@@ -1,7 +1,11 @@
 package halfrail.ui;
 
 import halfrail.convert.ConversionResult;
+import halfrail.design.StageKind;
 import javafx.scene.Scene;
+import javafx.scene.chart.XYChart;
+import javafx.scene.control.Button;
+import javafx.scene.control.ChoiceBox;
 import javafx.scene.control.Label;
 import javafx.scene.control.ListView;
 import javafx.scene.control.TableView;
@@ -19,7 +23,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-/** The conversion assistant's window driven through its controls (TestFX, headless), synchronous executor. */
+/** The conversion assistant's window driven through its controls (TestFX, headless Monocle), synchronous executor. */
 @ExtendWith(ApplicationExtension.class)
 class ConversionDialogTest {
     private WorkbenchModel model;
@@ -27,32 +31,113 @@ class ConversionDialogTest {
     @Start
     void start(Stage stage) {
         model = new WorkbenchModel(new SynchronousAnalysisExecutor(), SampleDesigns.instrumentBoost(), Optional.empty());
-        stage.setScene(new Scene(new ConversionDialog(model.conversion()), 1060, 640));
+        stage.setScene(new Scene(new ConversionDialog(model.conversion()), ConversionDialog.WIDTH, ConversionDialog.HEIGHT));
         stage.show();
     }
 
-    @Test
-    void aTypedStageIsConvertedShownAndOpenedAsANewDesign(FxRobot robot) {
-        TextField r2 = robot.lookup("#conv-r2").queryAs(TextField.class);
-        robot.interact(() -> r2.setText("47k"));
-        robot.interact(() -> robot.lookup("#conv-run").queryButton().fire());
-        ConversionResult r = model.conversion().resultProperty().get();
-        assertTrue(r != null, robot.lookup("#conv-message").queryAs(Label.class).getText());
-        // non-inverting gain 1 + 47k/10k = 5.7 (standard op-amp result), carried over to the conversion
-        assertEquals(5.7, r.comparison().after().gain(), 0.1);
-        assertFalse(robot.lookup("#conv-comparison").queryAs(TableView.class).getItems().isEmpty());
-        assertFalse(robot.lookup("#conv-changes").queryAs(ListView.class).getItems().isEmpty());
-        robot.interact(() -> robot.lookup("#conv-open").queryButton().fire());
-        assertEquals(r.design(), model.design());
-        assertTrue(model.dirtyProperty().get());
+    private static void type(FxRobot robot, String id, String text) {
+        TextField f = robot.lookup("#" + id).queryAs(TextField.class);
+        robot.interact(() -> f.setText(text));
+    }
+
+    @SuppressWarnings("unchecked")
+    private static <T> void choose(FxRobot robot, String id, T value) {
+        ChoiceBox<T> c = robot.lookup("#" + id).queryAs(ChoiceBox.class);
+        robot.interact(() -> c.setValue(value));
+    }
+
+    /** Whether the node and every parent of it are visible. */
+    private static boolean shown(FxRobot robot, String id) {
+        for (javafx.scene.Node n = robot.lookup("#" + id).query(); n != null; n = n.getParent()) {
+            if (!n.isVisible()) {
+                return false;
+            }
+        }
+        return true;
     }
 
     @Test
-    void anUnreadableValueIsRefusedInTheWindowWithItsFieldName(FxRobot robot) {
-        robot.interact(() -> robot.lookup("#conv-band-low").queryAs(TextField.class).setText("twenty"));
+    void aTwoStageChainIsFilledInConvertedShownWithItsConflictAndOpenedInTheWorkbench(FxRobot robot) {
+        type(robot, "conv-stage0-r2", "47k");
+        robot.interact(() -> robot.lookup("#conv-add-stage").queryButton().fire());
+        choose(robot, "conv-stage1-kind", StageKind.INVERTING);
+        type(robot, "conv-stage1-name", "invert");
+        type(robot, "conv-stage1-r1", "10k");
+        type(robot, "conv-stage1-r2", "22k");
+        type(robot, "conv-signal", "30m");
+        // the impossible pair of the conversion brief: a 1 Hz band with a 10 ms settle-up limit
+        type(robot, "conv-band-low", "1");
+        type(robot, "conv-settle", "10m");
         robot.interact(() -> robot.lookup("#conv-run").queryButton().fire());
-        assertTrue(robot.lookup("#conv-message").queryAs(Label.class).getText().startsWith("Not converted — band low:"),
-                robot.lookup("#conv-message").queryAs(Label.class).getText());
+
+        ConversionResult r = model.conversion().resultProperty().get();
+        assertTrue(r != null, robot.lookup("#conv-message").queryAs(Label.class).getText());
+        assertEquals(2, r.design().stages().size());
+        assertEquals("invert", r.design().stages().get(1).name());
+        // cascade gain (1 + 47k/10k)·(22k/10k) = 5.7·2.2 = 12.54 (non-inverting and inverting gain rules)
+        assertEquals(12.54, r.comparison().after().gain(), 12.54 * 0.02);
+
+        Label conflict = robot.lookup("#conv-conflict-0").queryAs(Label.class);
+        assertTrue(conflict.getText().startsWith("Won: band low end 1 Hz"), conflict.getText());
+        assertTrue(conflict.getText().contains("Missed: settle-up limit 10 ms, by "), conflict.getText());
+        TableView<?> table = robot.lookup("#conv-comparison").queryAs(TableView.class);
+        assertEquals(model.conversion().comparison().size(), table.getItems().size());
+        assertTrue(table.getItems().stream().anyMatch(x -> ((ConversionModel.Row) x).figure().equals("headroom at end-point")));
+        ListView<?> changes = robot.lookup("#conv-changes").queryAs(ListView.class);
+        assertEquals(r.changes().size(), changes.getItems().size());
+        TradeOffChart chart = robot.lookup("#conv-tradeoff").queryAs(TradeOffChart.class);
+        assertTrue(chart.getData().stream().map(XYChart.Series::getName).anyMatch(TradeOffChart.CHOSEN::equals),
+                "the converted design is marked on the curve");
+        int plotted = chart.getData().stream().filter(s -> s.getName().equals(TradeOffChart.CURVE)
+                || s.getName().equals(TradeOffChart.UNSETTLED)).mapToInt(s -> s.getData().size()).sum();
+        assertEquals(r.tradeOff().stream().filter(p -> p.lowerCornerHz().isPresent()).count(), plotted);
+
+        Button open = robot.lookup("#conv-open").queryButton();
+        assertFalse(open.isDisabled());
+        robot.interact(open::fire);
+        assertEquals(r.design(), model.design());
+        assertTrue(model.dirtyProperty().get(), "the converted design opens as new and unsaved");
+    }
+
+    @Test
+    void anUnreadableValueIsMarkedOnItsFieldAndTheConversionIsRefusedWithItsName(FxRobot robot) {
+        type(robot, "conv-band-low", "twenty");
+        TextField band = robot.lookup("#conv-band-low").queryAs(TextField.class);
+        assertTrue(band.getStyleClass().contains("refused"));
+        Label problem = robot.lookup("#conv-band-low-problem").queryAs(Label.class);
+        assertTrue(problem.isVisible() && !problem.getText().isEmpty());
+        robot.interact(() -> robot.lookup("#conv-run").queryButton().fire());
+        String message = robot.lookup("#conv-message").queryAs(Label.class).getText();
+        assertTrue(message.startsWith("Not converted — band low:"), message);
         assertTrue(robot.lookup("#conv-open").query().isDisabled());
+        type(robot, "conv-band-low", "20");
+        assertFalse(band.getStyleClass().contains("refused"));
+        assertFalse(problem.isVisible());
+    }
+
+    @Test
+    void theSupplyFieldsFollowTheSupplyKindAndALithiumCellShowsItsCaution(FxRobot robot) {
+        choose(robot, "conv-chemistry", halfrail.parts.CellChemistry.LI_ION);
+        Label note = robot.lookup("#conv-safety-note").queryAs(Label.class);
+        assertTrue(note.getText().contains("protection circuit"), note.getText());
+        assertTrue(shown(robot, "conv-cells"));
+        assertFalse(shown(robot, "conv-usb-ripple"));
+        choose(robot, "conv-supply", ConversionModel.SupplyKind.USB_PORT);
+        assertTrue(shown(robot, "conv-usb-ripple"));
+        assertFalse(shown(robot, "conv-cells"));
+        assertTrue(note.getText().contains("USB"), note.getText());
+        assertTrue(robot.lookup("#conv-supply-summary").queryAs(Label.class).getText().startsWith("5 V nominal"));
+    }
+
+    @Test
+    void aStageIsRemovedAndReorderedFromItsOwnButtons(FxRobot robot) {
+        robot.interact(() -> robot.lookup("#conv-add-stage").queryButton().fire());
+        type(robot, "conv-stage1-name", "second");
+        robot.interact(() -> robot.lookup("#conv-stage-up-1").queryButton().fire());
+        assertEquals("second", model.conversion().stages().get(0).name().textProperty().get());
+        assertEquals("second", robot.lookup("#conv-stage0-name").queryAs(TextField.class).getText());
+        robot.interact(() -> robot.lookup("#conv-stage-remove-0").queryButton().fire());
+        assertEquals(1, model.conversion().stages().size());
+        assertTrue(robot.lookup("#conv-stage-remove-0").queryButton().isDisabled(), "the last stage stays");
     }
 }
