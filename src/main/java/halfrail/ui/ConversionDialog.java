@@ -50,6 +50,11 @@ public final class ConversionDialog extends HBox {
     static final double WIDTH = 1240;
     static final double HEIGHT = 780;
 
+    /** Rows of the comparison table (gain, swing and headroom at three supply points, current, corner, settle-up). */
+    static final int TABLE_ROWS = 10;
+    private static final double ROW_PX = 22;
+    private static final double HEADER_PX = 28;
+
     private final ConversionModel model;
     private final VBox stageBlocks = new VBox(6);
 
@@ -102,6 +107,12 @@ public final class ConversionDialog extends HBox {
         convert.setDefaultButton(true);
         convert.disableProperty().bind(model.runningProperty());
         convert.setOnAction(e -> model.convert());
+        // the window opens with the focus on Convert, not inside the first field
+        convert.sceneProperty().addListener((o, was, now) -> {
+            if (now != null) {
+                javafx.application.Platform.runLater(convert::requestFocus);
+            }
+        });
         Button open = new Button("Open the converted design");
         open.setId("conv-open");
         open.disableProperty().bind(model.resultProperty().isNull());
@@ -345,24 +356,22 @@ public final class ConversionDialog extends HBox {
 
         TableView<ConversionModel.Row> table = new TableView<>();
         table.setId("conv-comparison");
-        table.getColumns().add(column("figure", ConversionModel.Row::figure, 150));
-        table.getColumns().add(column("dual-rail", ConversionModel.Row::before, 115));
-        table.getColumns().add(column("single supply", ConversionModel.Row::after, 95));
+        table.getColumns().add(column("figure", ConversionModel.Row::figure, 160));
+        table.getColumns().add(column("dual-rail", ConversionModel.Row::before, 120));
+        table.getColumns().add(column("single supply", ConversionModel.Row::after, 100));
         table.setColumnResizePolicy(TableView.CONSTRAINED_RESIZE_POLICY);
         table.setPlaceholder(new Label("no conversion yet"));
-        table.setFixedCellSize(22);
-        table.setPrefHeight(22 * 13 + 28);
-        table.setMinHeight(22 * 13 + 28);
-        table.setPrefWidth(380);
-        table.setMinWidth(360);
-        Label tableNote = new Label("The original runs from fixed ± rails: its figures hold at every supply point.");
-        tableNote.getStyleClass().add("hint");
-        tableNote.setWrapText(true);
-        tableNote.setMaxWidth(380);
+        table.setFixedCellSize(ROW_PX);
+        table.setPrefHeight(ROW_PX * TABLE_ROWS + HEADER_PX);
+        table.setMinHeight(ROW_PX * TABLE_ROWS + HEADER_PX);
+        table.setPrefWidth(400);
+        table.setMinWidth(400);
+        Label tableNote = hint("The original runs from fixed ± rails, so its figures hold at every supply point.");
+        tableNote.setMaxWidth(400);
         VBox tableBox = new VBox(2, title("Before and after"), table, tableNote);
 
         TradeOffChart chart = new TradeOffChart();
-        VBox chartBox = new VBox(2, title("Lower corner against settle-up (power-on runs of the engine)"), chart);
+        VBox chartBox = new VBox(2, title("Trade-off: lower corner against settle-up"), chart);
         VBox.setVgrow(chart, Priority.ALWAYS);
         HBox.setHgrow(chartBox, Priority.ALWAYS);
         HBox middle = new HBox(10, tableBox, chartBox);

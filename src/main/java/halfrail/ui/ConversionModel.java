@@ -331,7 +331,7 @@ public final class ConversionModel {
     private final PartsLibrary parts = PartsLibrary.builtIn();
     private Consumer<ConversionResult> opener = r -> { };
 
-    private final Entry name = new Entry("title", null, false, "converted chain", v -> "");
+    private final Entry name = new Entry("design title", null, false, "converted chain", v -> "");
     private final ObservableList<StageEntry> stages = FXCollections.observableArrayList();
     private final ObservableList<StageEntry> stagesView = FXCollections.unmodifiableObservableList(stages);
     private final Entry positiveRail = new Entry("+ rail", Unit.VOLT, false, "15", ConversionModel::positive);
@@ -339,19 +339,19 @@ public final class ConversionModel {
     private final ObjectProperty<SupplyKind> supplyKind = new SimpleObjectProperty<>(this, "supplyKind", SupplyKind.CELLS);
     private final ObjectProperty<String> chemistry = new SimpleObjectProperty<>(this, "chemistry", CellChemistry.ALKALINE_9V_BLOCK);
     private final Entry cells = new Entry("cells in series", Unit.NONE, false, "1", ConversionModel::wholeCells);
-    private final Entry railVolts = new Entry("rail", Unit.VOLT, false, "5", ConversionModel::positive);
-    private final Entry railTolerance = new Entry("rail tolerance, %", Unit.NONE, false, "5",
+    private final Entry railVolts = new Entry("fixed rail", Unit.VOLT, false, "5", ConversionModel::positive);
+    private final Entry railTolerance = new Entry("tolerance", Unit.NONE, false, "5",
             v -> v >= 0 && v < 100 ? "" : "must lie from 0 to below 100 %, got " + v);
-    private final Entry usbRipple = new Entry("USB ripple, peak", Unit.VOLT, true, "", ConversionModel::nonNegative);
-    private final Entry usbRippleHz = new Entry("USB ripple frequency", Unit.HERTZ, true, "", ConversionModel::positive);
+    private final Entry usbRipple = new Entry("ripple", Unit.VOLT, true, "", ConversionModel::nonNegative);
+    private final Entry usbRippleHz = new Entry("ripple frequency", Unit.HERTZ, true, "", ConversionModel::positive);
     private final Entry signal = new Entry("signal", Unit.VOLT, false, "100m", ConversionModel::positive);
     private final Entry sourceOhms = new Entry("source resistance", Unit.OHM, false, "1k", ConversionModel::nonNegative);
-    private final Entry bandLow = new Entry("band low", Unit.HERTZ, false, "20", ConversionModel::positive);
-    private final Entry bandHigh = new Entry("band high", Unit.HERTZ, false, "20k", ConversionModel::positive);
+    private final Entry bandLow = new Entry("band from", Unit.HERTZ, false, "20", ConversionModel::positive);
+    private final Entry bandHigh = new Entry("band to", Unit.HERTZ, false, "20k", ConversionModel::positive);
     private final Entry loadOhms = new Entry("load", Unit.OHM, false, "10k", ConversionModel::positive);
-    private final Entry maxSettle = new Entry("settle-up limit", Unit.SECOND, true, "", ConversionModel::positive);
-    private final Entry maxCurrent = new Entry("current limit", Unit.AMPERE, true, "", ConversionModel::positive);
-    private final Entry minRuntime = new Entry("runtime wanted", Unit.NONE, true, "", ConversionModel::positive);
+    private final Entry maxSettle = new Entry("settle-up at most", Unit.SECOND, true, "", ConversionModel::positive);
+    private final Entry maxCurrent = new Entry("supply current at most", Unit.AMPERE, true, "", ConversionModel::positive);
+    private final Entry minRuntime = new Entry("runtime at least", Unit.NONE, true, "", ConversionModel::positive);
     private final ObjectProperty<LimitPriority> priority = new SimpleObjectProperty<>(this, "priority", LimitPriority.BAND);
 
     private final ReadOnlyStringWrapper supplySummary = new ReadOnlyStringWrapper(this, "supplySummary", "");
@@ -662,11 +662,10 @@ public final class ConversionModel {
         rows.add(new Row("gain in the band", String.format(Locale.ROOT, "%.3g", b.gain()),
                 String.format(Locale.ROOT, "%.3g", a.gain())));
         for (SupplyPoint p : a.points()) {
-            rows.add(new Row("swing at " + p.label() + " (" + Quantities.volts(p.supplyVolts()) + ")",
-                    swing(bp), swing(p)));
+            rows.add(new Row("swing, " + p.label() + " " + Quantities.volts(p.supplyVolts()), swing(bp), swing(p)));
         }
         for (SupplyPoint p : a.points()) {
-            rows.add(new Row("headroom at " + p.label(), db(bp.headroomDb()), db(p.headroomDb())));
+            rows.add(new Row("headroom, " + p.label(), db(bp.headroomDb()), db(p.headroomDb())));
         }
         rows.add(new Row("supply current", Quantities.amps(b.supplyAmps()) + " + / " + Quantities.amps(b.negativeRailAmps())
                 + " −", Quantities.amps(a.supplyAmps())));

@@ -25,6 +25,13 @@ final class TradeOffChart extends LineChart<Number, Number> {
     static final String BAND = "band low end";
     static final String LIMIT = "settle-up limit";
 
+    private static final String CURVE_COLOUR = "#3b3f9e";
+    private static final String UNSETTLED_COLOUR = "#8a4f7d";
+    private static final String BAND_COLOUR = "#d7401f";
+    private static final String LIMIT_COLOUR = "#138a7e";
+    private static final String CHOSEN_FILL = "#2b2d31, #ffd84d";
+    private static final String LINE_STYLE = "-fx-stroke-dash-array: 6 4; -fx-stroke-width: 1.5; ";
+
     TradeOffChart() {
         super(DecadeAxis.of("lower corner", "Hz"), DecadeAxis.of("settle-up", "s"));
         setId("conv-tradeoff");
@@ -96,32 +103,54 @@ final class TradeOffChart extends LineChart<Number, Number> {
             limitLine.getData().add(new XYChart.Data<>(x.getUpperBound(), Math.log10(l)));
         });
         getData().add(curve);
+        paint(curve, "-fx-stroke: " + CURVE_COLOUR + "; -fx-stroke-width: 2;", CURVE_COLOUR + ", white");
         if (!open.getData().isEmpty()) {
             getData().add(open);
-            open.getNode().setStyle("-fx-stroke: transparent;");
-            open.getData().forEach(d -> d.getNode().setStyle("-fx-background-color: #8a4f7d, white;"));
+            paint(open, "-fx-stroke: transparent;", UNSETTLED_COLOUR + ", white");
         }
         getData().add(bandLine);
-        bandLine.getNode().getStyleClass().add("band-mark");
-        bandLine.getData().forEach(d -> d.getNode().setVisible(false));
+        paint(bandLine, LINE_STYLE + "-fx-stroke: " + BAND_COLOUR + ";", null);
         if (!limitLine.getData().isEmpty()) {
             getData().add(limitLine);
-            limitLine.getNode().getStyleClass().add("settle-mark");
-            limitLine.getData().forEach(d -> d.getNode().setVisible(false));
+            paint(limitLine, LINE_STYLE + "-fx-stroke: " + LIMIT_COLOUR + ";", null);
         }
         if (!chosen.getData().isEmpty()) {
             getData().add(chosen);
+            chosen.getNode().setStyle("-fx-stroke: transparent;");
             chosen.getData().forEach(d -> {
                 d.getNode().getStyleClass().add("chosen-mark");
-                d.getNode().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: #2b2d31, #ffd84d;");
+                d.getNode().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: " + CHOSEN_FILL + ";");
             });
         }
         applyCss();
         if (lookup(".chart-legend") instanceof javafx.scene.layout.Pane legend) {
             for (javafx.scene.Node n : legend.getChildren()) {
-                if (n instanceof Label l && CHOSEN.equals(l.getText()) && l.getGraphic() != null) {
-                    l.getGraphic().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: #2b2d31, #ffd84d;");
+                if (n instanceof Label l && l.getGraphic() != null) {
+                    String fill = switch (l.getText()) {
+                        case CURVE -> CURVE_COLOUR + ", white";
+                        case UNSETTLED -> UNSETTLED_COLOUR + ", white";
+                        case BAND -> BAND_COLOUR + ", " + BAND_COLOUR;
+                        case LIMIT -> LIMIT_COLOUR + ", " + LIMIT_COLOUR;
+                        default -> null;
+                    };
+                    if (CHOSEN.equals(l.getText())) {
+                        l.getGraphic().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: " + CHOSEN_FILL + ";");
+                    } else if (fill != null) {
+                        l.getGraphic().setStyle("-fx-background-color: " + fill + ";");
+                    }
                 }
+            }
+        }
+    }
+
+    /** Style a series' line and, unless {@code symbolFill} is null (then they are hidden), its points. */
+    private static void paint(XYChart.Series<Number, Number> s, String lineStyle, String symbolFill) {
+        s.getNode().setStyle(lineStyle);
+        for (XYChart.Data<Number, Number> d : s.getData()) {
+            if (symbolFill == null) {
+                d.getNode().setVisible(false);
+            } else {
+                d.getNode().setStyle("-fx-background-color: " + symbolFill + ";");
             }
         }
     }

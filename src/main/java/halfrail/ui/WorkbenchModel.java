@@ -105,7 +105,7 @@ public final class WorkbenchModel {
         this.monteCarlo = new MonteCarloModel(Objects.requireNonNull(studies, "studies"), design::get);
         this.tradeoff = new DividerTradeoffModel(studies);
         this.conversion = new ConversionModel(studies);
-        conversion.setOpener(r -> openUnsaved(r.design(), "Opened the conversion of the dual-rail stage as a new design"));
+        conversion.setOpener(r -> openUnsaved(r.design(), "Opened the conversion of the dual-rail circuit as a new design"));
         monteCarlo.setOnResult(r -> {
             spreadFrom = r;
             DesignReport shown = report.get();

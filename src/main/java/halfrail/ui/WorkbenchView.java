@@ -253,7 +253,7 @@ public final class WorkbenchView extends BorderPane {
         MenuItem add = new MenuItem("Add a stage");
         add.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+N"));
         add.setOnAction(e -> model.editor().addStage());
-        MenuItem convert = new MenuItem("Move a dual-rail stage to one supply…");
+        MenuItem convert = new MenuItem("Move a dual-rail stage or chain to one supply…");
         convert.setId("convert");
         convert.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+K"));
         convert.setOnAction(e -> ConversionDialog.show(model.conversion(), window(),

@@ -82,7 +82,8 @@ class ConversionDialogTest {
         assertTrue(conflict.getText().contains("Missed: settle-up limit 10 ms, by "), conflict.getText());
         TableView<?> table = robot.lookup("#conv-comparison").queryAs(TableView.class);
         assertEquals(model.conversion().comparison().size(), table.getItems().size());
-        assertTrue(table.getItems().stream().anyMatch(x -> ((ConversionModel.Row) x).figure().equals("headroom at end-point")));
+        assertEquals(ConversionDialog.TABLE_ROWS, table.getItems().size(), "the table is sized for every row");
+        assertTrue(table.getItems().stream().anyMatch(x -> ((ConversionModel.Row) x).figure().equals("headroom, end-point")));
         ListView<?> changes = robot.lookup("#conv-changes").queryAs(ListView.class);
         assertEquals(r.changes().size(), changes.getItems().size());
         TradeOffChart chart = robot.lookup("#conv-tradeoff").queryAs(TradeOffChart.class);
@@ -108,7 +109,7 @@ class ConversionDialogTest {
         assertTrue(problem.isVisible() && !problem.getText().isEmpty());
         robot.interact(() -> robot.lookup("#conv-run").queryButton().fire());
         String message = robot.lookup("#conv-message").queryAs(Label.class).getText();
-        assertTrue(message.startsWith("Not converted — band low:"), message);
+        assertTrue(message.startsWith("Not converted — band from:"), message);
         assertTrue(robot.lookup("#conv-open").query().isDisabled());
         type(robot, "conv-band-low", "20");
         assertFalse(band.getStyleClass().contains("refused"));

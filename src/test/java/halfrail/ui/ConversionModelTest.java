@@ -61,7 +61,7 @@ class ConversionModelTest {
         conv.bandLow().textProperty().set("30k");
         assertTrue(conv.bandHigh().problemProperty().get().contains("above the band's low end"),
                 conv.bandHigh().problemProperty().get());
-        assertTrue(conv.firstProblem().orElseThrow().startsWith("band high:"));
+        assertTrue(conv.firstProblem().orElseThrow().startsWith("band to:"));
         conv.bandLow().textProperty().set("20");
         assertEquals("", conv.bandHigh().problemProperty().get());
     }

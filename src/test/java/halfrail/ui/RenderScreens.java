@@ -109,6 +109,70 @@ class RenderScreens {
         assertTrue(Files.size(file) > 10_000);
     }
 
+    @Test
+    void rendersTheConversionAssistantAfterATwoStageConversionWithAConflict() throws Exception {
+        Path file = renderConversion(c -> {
+            c.stages().get(0).r2().textProperty().set("47k");
+            c.addStage();
+            c.stages().get(1).kindProperty().set(halfrail.design.StageKind.INVERTING);
+            c.stages().get(1).name().textProperty().set("invert");
+            c.stages().get(1).r2().textProperty().set("22k");
+            c.signal().textProperty().set("30m");
+            c.bandLow().textProperty().set("5");
+            c.maxSettle().textProperty().set("100m");
+            c.convert();
+        }, "conversion.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersTheConversionAssistantWithACustomPartALithiumCellAndARefusedValue() throws Exception {
+        Path file = renderConversion(c -> {
+            c.stages().get(0).opAmpProperty().set(ConversionModel.CUSTOM);
+            c.chemistryProperty().set(halfrail.parts.CellChemistry.LI_ION);
+            c.bandHigh().textProperty().set("2O k");
+        }, 0.75, "conversion-form.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    /** Render the conversion window at its menu size after {@code prepare} has filled it (on the FX thread). */
+    static Path renderConversion(java.util.function.Consumer<ConversionModel> prepare, String name) throws Exception {
+        return renderConversion(prepare, -1, name);
+    }
+
+    /** The same, with the form scrolled to {@code scroll} (0 top, 1 bottom). */
+    static Path renderConversion(java.util.function.Consumer<ConversionModel> prepare, double scroll, String name)
+            throws Exception {
+        FxToolkit.registerPrimaryStage();
+        WorkbenchModel model = new WorkbenchModel(new SynchronousAnalysisExecutor(), SampleDesigns.instrumentBoost(),
+                java.util.Optional.empty());
+        Scene scene = WaitForAsyncUtils.asyncFx(() -> {
+            Scene s = new Scene(new ConversionDialog(model.conversion()), ConversionDialog.WIDTH, ConversionDialog.HEIGHT);
+            s.getStylesheets().add(HalfrailApp.class.getResource("halfrail.css").toExternalForm());
+            return s;
+        }).get();
+        FxToolkit.setupStage(stage -> {
+            stage.setScene(scene);
+            stage.show();
+        });
+        WaitForAsyncUtils.asyncFx(() -> prepare.accept(model.conversion())).get(120, TimeUnit.SECONDS);
+        WaitForAsyncUtils.waitForFxEvents();
+        if (scroll >= 0) {
+            WaitForAsyncUtils.asyncFx(() -> {
+                scene.getRoot().applyCss();
+                scene.getRoot().layout();
+                ((javafx.scene.control.ScrollPane) scene.lookup("#conv-form")).setVvalue(scroll);
+            }).get();
+            WaitForAsyncUtils.waitForFxEvents();
+        }
+        WritableImage image = WaitForAsyncUtils.asyncFx(() -> scene.snapshot(null)).get(30, TimeUnit.SECONDS);
+        Files.createDirectories(OUT);
+        Path file = OUT.resolve(name);
+        write(SwingFXUtils.fromFXImage(image, null), file);
+        FxToolkit.cleanupStages();
+        return file;
+    }
+
     /** Render a window on {@code design} after {@code prepare} has acted on it (on the FX thread). */
     static Path render(halfrail.design.Design design, java.util.function.Consumer<WorkbenchView> prepare, String name)
             throws Exception {
