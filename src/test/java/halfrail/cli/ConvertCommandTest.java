@@ -71,6 +71,22 @@ class ConvertCommandTest {
     }
 
     @Test
+    void aTwoStageChainGivenAsOptionsMovesOntoAUsbPort(@TempDir Path dir) {
+        Path out = dir.resolve("usb.json");
+        CheckCommandTest.Run r = CheckCommandTest.run("convert", "--stage", "non-inverting:10k:47k:cmos-rrio-low-voltage",
+                "--stage", "inverting:10k:22k:cmos-rrio-low-voltage", "--dual-rail", "5", "--usb", "--band", "20:20k",
+                "--signal", "20m", "--source-ohms", "100", "--load", "10k", "-o", out.toString());
+        assertEquals(ExitCodes.PASS, r.code(), r.out() + r.err());
+        Design d = DesignFiles.read(out);
+        assertEquals(2, d.stages().size());
+        assertTrue(d.supply() instanceof halfrail.design.UsbPort, d.supply().toString());
+        // the stages keep their resistors: gains 1 + 47k/10k = 5.7 and −22k/10k = −2.2 (closed forms)
+        assertEquals(5.7, d.stages().get(0).nominalGain(), 1e-12);
+        assertEquals(-2.2, d.stages().get(1).nominalGain(), 1e-12);
+        assertFalse(DesignAnalysis.analyse(d).has(Severity.FAIL));
+    }
+
+    @Test
     void badInputExitsTwoWithOneLineNamingThePath(@TempDir Path dir) throws IOException {
         Path f = dir.resolve("bad.json");
         Files.writeString(f, Files.readString(Path.of(SAMPLE)).replace("\"r2Ohms\": \"100k\"", "\"r2Ohms\": \"-1\""));

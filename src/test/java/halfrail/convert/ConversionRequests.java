@@ -37,6 +37,21 @@ final class ConversionRequests {
                 new SignalSource(0.3, AmplitudeUnit.VOLTS_PEAK, 600, 20, 20e3), 600, 0, ConversionLimits.none());
     }
 
+    /**
+     * A two-stage chain on ±12 V (non-inverting gain 11, then inverting −2.2, JFET-input parts)
+     * moved to three AA cells: 30 mV peak from 10 kΩ, 20 Hz–20 kHz, 47 kΩ load, settle-up within
+     * 1 s and at most 1 mA.
+     */
+    static ConversionRequest twoStageChainToThreeAaCells() {
+        DualRailChain chain = new DualRailChain(List.of(
+                new DualRailStage("gain", StageKind.NON_INVERTING, 10e3, 100e3, OpAmpChoice.archetype("jfet-input-audio")),
+                new DualRailStage("invert", StageKind.INVERTING, 10e3, 22e3, OpAmpChoice.archetype("jfet-input-audio"))),
+                12, 12);
+        return new ConversionRequest("two stages on AA cells", chain, new CellPack("alkaline-aa", 3),
+                new SignalSource(0.03, AmplitudeUnit.VOLTS_PEAK, 10e3, 20, 20e3), 47e3, 0,
+                ConversionLimits.none().withMaxSettleSeconds(1).withMaxSupplyAmps(1e-3));
+    }
+
     /** A deliberately impossible request: a 1 Hz low end with a 10 ms settle-up limit. */
     static ConversionRequest oneHertzInTenMilliseconds() {
         SignalSource s = new SignalSource(0.1, AmplitudeUnit.VOLTS_PEAK, 1e3, 1, 20e3);
