@@ -469,15 +469,26 @@ public final class ConversionDialog extends HBox {
         return c;
     }
 
-    /** Show the assistant in a window of its own over {@code owner}. */
+    /**
+     * The window of each assistant already shown, so that the menu brings it back (with what was typed)
+     * instead of stacking new windows whose listeners the model would keep. One per workbench; the
+     * window refers to its model, so an entry lasts as long as the app.
+     */
+    private static final java.util.Map<ConversionModel, Stage> SHOWN = new java.util.WeakHashMap<>();
+
+    /** Show the assistant in a window of its own over {@code owner}; the same window again when it was shown before. */
     static Stage show(ConversionModel model, Window owner, List<String> stylesheets) {
-        Stage stage = new Stage();
-        stage.initOwner(owner);
-        stage.setTitle("Halfrail — move a dual-rail circuit to one supply");
-        Scene scene = new Scene(new ConversionDialog(model), WIDTH, HEIGHT);
-        scene.getStylesheets().addAll(stylesheets);
-        stage.setScene(scene);
+        Stage stage = SHOWN.get(model);
+        if (stage == null || stage.getOwner() != owner) {
+            stage = new Stage();
+            stage.initOwner(owner);
+            stage.setTitle("Halfrail — move a dual-rail circuit to one supply");
+            stage.setScene(new Scene(new ConversionDialog(model), WIDTH, HEIGHT));
+            SHOWN.put(model, stage);
+        }
+        stage.getScene().getStylesheets().setAll(stylesheets);
         stage.show();
+        stage.toFront();
         return stage;
     }
 }

@@ -27,9 +27,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 @ExtendWith(ApplicationExtension.class)
 class ConversionDialogTest {
     private WorkbenchModel model;
+    private Stage primary;
 
     @Start
     void start(Stage stage) {
+        primary = stage;
         model = new WorkbenchModel(new SynchronousAnalysisExecutor(), SampleDesigns.instrumentBoost(), Optional.empty());
         stage.setScene(new Scene(new ConversionDialog(model.conversion()), ConversionDialog.WIDTH, ConversionDialog.HEIGHT));
         stage.show();
@@ -140,5 +142,22 @@ class ConversionDialogTest {
         robot.interact(() -> robot.lookup("#conv-stage-remove-0").queryButton().fire());
         assertEquals(1, model.conversion().stages().size());
         assertTrue(robot.lookup("#conv-stage-remove-0").queryButton().isDisabled(), "the last stage stays");
+    }
+
+    @Test
+    void theMenusWindowIsBroughtBackRatherThanStackedAndClosesWhenTheDesignIsOpened(FxRobot robot) {
+        Stage[] shown = new Stage[2];
+        robot.interact(() -> {
+            shown[0] = ConversionDialog.show(model.conversion(), primary, java.util.List.of());
+            shown[0].hide();
+            shown[1] = ConversionDialog.show(model.conversion(), primary, java.util.List.of());
+        });
+        org.junit.jupiter.api.Assertions.assertSame(shown[0], shown[1]);
+        assertTrue(shown[1].isShowing());
+        robot.interact(() -> ((Button) shown[1].getScene().lookup("#conv-run")).fire());
+        assertTrue(model.conversion().resultProperty().get() != null, model.conversion().messageProperty().get());
+        robot.interact(() -> ((Button) shown[1].getScene().lookup("#conv-open")).fire());
+        assertFalse(shown[1].isShowing(), "the window closes once the design is in the workbench");
+        assertEquals(model.conversion().resultProperty().get().design(), model.design());
     }
 }
