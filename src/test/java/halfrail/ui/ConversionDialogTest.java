@@ -142,6 +142,11 @@ class ConversionDialogTest {
         robot.interact(() -> robot.lookup("#conv-stage-remove-0").queryButton().fire());
         assertEquals(1, model.conversion().stages().size());
         assertTrue(robot.lookup("#conv-stage-remove-0").queryButton().isDisabled(), "the last stage stays");
+        choose(robot, "conv-stage0-kind", StageKind.FOLLOWER);
+        assertTrue(robot.lookup("#conv-stage0-r1").query().isDisabled(), "a follower has no R1");
+        robot.interact(() -> robot.lookup("#conv-stage0-r1").queryAs(TextField.class).setText(""));
+        assertEquals(StageKind.FOLLOWER, model.conversion().request().original().stages().get(0).kind(),
+                "a blank R1 does not stop a follower");
     }
 
     @Test
