@@ -198,7 +198,8 @@ public final class ConversionDialog extends HBox {
         VBox block = new VBox(3, tools, main, customBox);
         block.setId("conv-stage-" + i);
         block.getStyleClass().add("conv-stage");
-        block.setStyle("-fx-border-color: #d8d3c8; -fx-border-width: 1; -fx-padding: 4 6 6 6;");
+        // a border derived from the theme's base colour, so that it suits the light and the dark appearance
+        block.setStyle("-fx-border-color: derive(-fx-base, -18%); -fx-border-width: 1; -fx-padding: 4 6 6 6;");
         return block;
     }
 
@@ -414,6 +415,7 @@ public final class ConversionDialog extends HBox {
             statement.setWrapText(true);
             statement.setMinHeight(Region.USE_PREF_SIZE);
             statement.getStyleClass().add("conv-conflict");
+            statement.setStyle("-fx-font-weight: bold;");
             Label why = hint(c.explanation());
             box.getChildren().addAll(statement, why);
         }

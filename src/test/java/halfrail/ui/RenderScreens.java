@@ -135,6 +135,25 @@ class RenderScreens {
         assertTrue(Files.size(file) > 10_000);
     }
 
+    @Test
+    void rendersTheConversionAssistantInTheDarkAppearance() throws Exception {
+        dark = true;
+        try {
+            Path file = renderConversion(c -> {
+                c.addStage();
+                c.stages().get(1).kindProperty().set(halfrail.design.StageKind.INVERTING);
+                c.stages().get(1).r2().textProperty().set("22k");
+                c.signal().textProperty().set("20m");
+                c.convert();
+            }, "conversion-dark.png");
+            assertTrue(Files.size(file) > 10_000);
+        } finally {
+            dark = false;
+        }
+    }
+
+    private static boolean dark;
+
     /** Render the conversion window at its menu size after {@code prepare} has filled it (on the FX thread). */
     static Path renderConversion(java.util.function.Consumer<ConversionModel> prepare, String name) throws Exception {
         return renderConversion(prepare, -1, name);
@@ -149,6 +168,9 @@ class RenderScreens {
         Scene scene = WaitForAsyncUtils.asyncFx(() -> {
             Scene s = new Scene(new ConversionDialog(model.conversion()), ConversionDialog.WIDTH, ConversionDialog.HEIGHT);
             s.getStylesheets().add(HalfrailApp.class.getResource("halfrail.css").toExternalForm());
+            if (dark) {
+                s.getStylesheets().add(HalfrailApp.class.getResource("halfrail-dark.css").toExternalForm());
+            }
             return s;
         }).get();
         FxToolkit.setupStage(stage -> {
