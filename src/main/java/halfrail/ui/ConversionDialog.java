@@ -124,9 +124,9 @@ public final class ConversionDialog extends HBox {
         HBox buttons = new HBox(8, convert, open);
         buttons.setPadding(new Insets(4, 0, 0, 0));
         VBox left = new VBox(4, scroll, buttons);
-        left.setPrefWidth(420);
+        left.setPrefWidth(445);
         left.setMinWidth(380);
-        left.setMaxWidth(460);
+        left.setMaxWidth(480);
 
         getChildren().addAll(left, outcome());
         HBox.setHgrow(getChildren().get(1), Priority.ALWAYS);
@@ -393,6 +393,8 @@ public final class ConversionDialog extends HBox {
         showConflicts(conflicts);
         VBox right = new VBox(4, message, title("Limits"), conflicts, middle, title("What was changed, and why"), changes);
         right.setMinWidth(600);
+        // a modest preferred width: the form keeps its own, the outcome takes what is left
+        right.setPrefWidth(600);
         return right;
     }
 
@@ -488,7 +490,13 @@ public final class ConversionDialog extends HBox {
             stage.setScene(new Scene(new ConversionDialog(model), WIDTH, HEIGHT));
             SHOWN.put(model, stage);
         }
-        stage.getScene().getStylesheets().setAll(stylesheets);
+        // follow the main window's sheets while open (the dark appearance switched on or off)
+        if (stylesheets instanceof javafx.collections.ObservableList<String> live) {
+            Bindings.unbindContent(stage.getScene().getStylesheets(), live);
+            Bindings.bindContent(stage.getScene().getStylesheets(), live);
+        } else {
+            stage.getScene().getStylesheets().setAll(stylesheets);
+        }
         stage.show();
         stage.toFront();
         return stage;

@@ -17,6 +17,7 @@ import org.testfx.api.FxRobot;
 import org.testfx.framework.junit5.ApplicationExtension;
 import org.testfx.framework.junit5.Start;
 
+import java.util.List;
 import java.util.Optional;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
@@ -159,6 +160,11 @@ class ConversionDialogTest {
         });
         org.junit.jupiter.api.Assertions.assertSame(shown[0], shown[1]);
         assertTrue(shown[1].isShowing());
+        javafx.collections.ObservableList<String> sheets = javafx.collections.FXCollections.observableArrayList("a.css");
+        robot.interact(() -> ConversionDialog.show(model.conversion(), primary, sheets));
+        robot.interact(() -> sheets.add("b.css"));
+        assertEquals(List.of("a.css", "b.css"), shown[1].getScene().getStylesheets(),
+                "the window follows the main window's sheets (the dark appearance) while open");
         robot.interact(() -> ((Button) shown[1].getScene().lookup("#conv-run")).fire());
         assertTrue(model.conversion().resultProperty().get() != null, model.conversion().messageProperty().get());
         robot.interact(() -> ((Button) shown[1].getScene().lookup("#conv-open")).fire());
