@@ -263,8 +263,9 @@ public final class ConversionDialog extends HBox {
         }
         Label problem = problemLabel(id + "-problem");
         problem.textProperty().bind(entry.problemProperty());
-        mark(f, entry.problemProperty().get());
-        entry.problemProperty().addListener((o, was, now) -> mark(f, now));
+        mark(f, problem.getText());
+        // listen to the row's own label (bound weakly to the entry), so a rebuilt form leaves nothing behind
+        problem.textProperty().addListener((o, was, now) -> mark(f, now));
         return new Row(fieldLabel(label), f, problem);
     }
 
