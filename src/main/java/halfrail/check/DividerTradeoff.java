@@ -56,8 +56,8 @@ public final class DividerTradeoff {
      * @throws AnalysisException when a divider value cannot be solved (a floating node, no convergence)
      */
     public static DividerTradeoffResult run(Design design, DividerTradeoffOptions options) {
-        StudyOptionsException.required("design", design);
-        StudyOptionsException.required("tradeoff", options);
+        StudyOptionsException.RULES.required("design", design);
+        StudyOptionsException.RULES.required("tradeoff", options);
         Reference ref = design.reference();
         record Row(double upper, double lower, boolean current) {}
         List<Row> rows = new ArrayList<>();

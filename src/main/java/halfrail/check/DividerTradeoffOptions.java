@@ -18,9 +18,9 @@ public record DividerTradeoffOptions(ESeries series, double minOhms, double maxO
     public static final int MAX_VALUES = 2_000;
 
     public DividerTradeoffOptions {
-        StudyOptionsException.required("tradeoff.series", series);
-        StudyOptionsException.positive("tradeoff.minOhms", minOhms, "Ω");
-        StudyOptionsException.positive("tradeoff.maxOhms", maxOhms, "Ω");
+        StudyOptionsException.RULES.required("tradeoff.series", series);
+        StudyOptionsException.RULES.positive("tradeoff.minOhms", minOhms, "Ω");
+        StudyOptionsException.RULES.positive("tradeoff.maxOhms", maxOhms, "Ω");
         if (maxOhms < minOhms) {
             throw new StudyOptionsException("tradeoff.maxOhms", "must be at least minOhms (" + minOhms + " Ω), got "
                     + maxOhms + " Ω");

@@ -63,8 +63,8 @@ public final class MonteCarlo {
      */
     public static MonteCarloResult run(ToleranceModel model, MonteCarloOptions options, Executor executor,
                                        StudyProgress progress, CancelToken cancel) {
-        StudyOptionsException.required("model", model);
-        StudyOptionsException.required("monteCarlo", options);
+        StudyOptionsException.RULES.required("model", model);
+        StudyOptionsException.RULES.required("monteCarlo", options);
         return run(model, options, executor, progress, cancel, new BuildEvaluator(model));
     }
 
@@ -76,9 +76,9 @@ public final class MonteCarlo {
 
     private static MonteCarloResult run(ToleranceModel model, MonteCarloOptions options, Executor executor,
                                         StudyProgress progress, CancelToken cancel, BuildEvaluator ev) {
-        StudyOptionsException.required("executor", executor);
-        StudyOptionsException.required("progress", progress);
-        StudyOptionsException.required("cancel", cancel);
+        StudyOptionsException.RULES.required("executor", executor);
+        StudyOptionsException.RULES.required("progress", progress);
+        StudyOptionsException.RULES.required("cancel", cancel);
         int n = options.builds();
         int m = ev.opAmpCount();
         int np = model.parameters().size();

@@ -43,7 +43,7 @@ public record MonteCarloOptions(int builds, long seed, Distribution distribution
         if (builds > MAX_BUILDS) {
             throw new StudyOptionsException("monteCarlo.builds", "must be at most " + MAX_BUILDS + ", got " + builds);
         }
-        StudyOptionsException.required("monteCarlo.distribution", distribution);
+        StudyOptionsException.RULES.required("monteCarlo.distribution", distribution);
         if (histogramBins < 1 || histogramBins > MAX_BINS) {
             throw new StudyOptionsException("monteCarlo.histogramBins",
                     "must be between 1 and " + MAX_BINS + ", got " + histogramBins);

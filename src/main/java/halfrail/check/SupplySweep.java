@@ -54,8 +54,8 @@ public final class SupplySweep {
      * @throws AnalysisException     when a point cannot be solved (a floating node, no convergence)
      */
     public static SupplySweepResult run(Design design, SupplySweepOptions options) {
-        StudyOptionsException.required("design", design);
-        StudyOptionsException.required("sweep", options);
+        StudyOptionsException.RULES.required("design", design);
+        StudyOptionsException.RULES.required("sweep", options);
         Supply supply = design.supply();
         double low = supply.lowVolts();
         double high = supply.highVolts();

@@ -17,16 +17,16 @@ public record SupplySweepOptions(OptionalDouble fromVolts, OptionalDouble toVolt
     public static final int MAX_POINTS = 100_000;
 
     public SupplySweepOptions {
-        StudyOptionsException.required("sweep.fromVolts", fromVolts);
-        StudyOptionsException.required("sweep.toVolts", toVolts);
+        StudyOptionsException.RULES.required("sweep.fromVolts", fromVolts);
+        StudyOptionsException.RULES.required("sweep.toVolts", toVolts);
         if (points < 2) {
             throw new StudyOptionsException("sweep.points", "a sweep needs at least 2 points, got " + points);
         }
         if (points > MAX_POINTS) {
             throw new StudyOptionsException("sweep.points", "must be at most " + MAX_POINTS + ", got " + points);
         }
-        fromVolts.ifPresent(v -> StudyOptionsException.positive("sweep.fromVolts", v, "V"));
-        toVolts.ifPresent(v -> StudyOptionsException.positive("sweep.toVolts", v, "V"));
+        fromVolts.ifPresent(v -> StudyOptionsException.RULES.positive("sweep.fromVolts", v, "V"));
+        toVolts.ifPresent(v -> StudyOptionsException.RULES.positive("sweep.toVolts", v, "V"));
         if (fromVolts.isPresent() && toVolts.isPresent() && !(toVolts.getAsDouble() > fromVolts.getAsDouble())) {
             throw new StudyOptionsException("sweep.toVolts", "must lie above fromVolts (" + fromVolts.getAsDouble()
                     + " V), got " + toVolts.getAsDouble() + " V");

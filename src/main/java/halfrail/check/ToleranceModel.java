@@ -168,9 +168,9 @@ public final class ToleranceModel {
 
     /** The tolerance model of {@code design} at {@code supplyVolts} V. */
     public static ToleranceModel of(Design design, double supplyVolts, ToleranceOptions options) {
-        StudyOptionsException.required("design", design);
-        StudyOptionsException.required("tolerance", options);
-        StudyOptionsException.positive("supplyVolts", supplyVolts, "V");
+        StudyOptionsException.RULES.required("design", design);
+        StudyOptionsException.RULES.required("tolerance", options);
+        StudyOptionsException.RULES.positive("supplyVolts", supplyVolts, "V");
         ToleranceModel m = new ToleranceModel(design, supplyVolts, options);
         for (String path : options.customOpAmpSpreads().keySet()) {
             OpAmpChoice choice = choiceAt(design, path);

@@ -40,10 +40,10 @@ public record ToleranceOptions(double resistorTolerance, double resistorTempcoPp
     public static final double ABSOLUTE_ZERO_CELSIUS = -273.15;
 
     public ToleranceOptions {
-        StudyOptionsException.tolerance("tolerance.resistorTolerance", resistorTolerance);
-        StudyOptionsException.nonNegative("tolerance.resistorTempcoPpmPerKelvin", resistorTempcoPpmPerKelvin, "ppm/K");
-        StudyOptionsException.finite("tolerance.minTemperatureCelsius", minTemperatureCelsius, "°C");
-        StudyOptionsException.finite("tolerance.maxTemperatureCelsius", maxTemperatureCelsius, "°C");
+        StudyOptionsException.RULES.tolerance("tolerance.resistorTolerance", resistorTolerance);
+        StudyOptionsException.RULES.nonNegative("tolerance.resistorTempcoPpmPerKelvin", resistorTempcoPpmPerKelvin, "ppm/K");
+        StudyOptionsException.RULES.finite("tolerance.minTemperatureCelsius", minTemperatureCelsius, "°C");
+        StudyOptionsException.RULES.finite("tolerance.maxTemperatureCelsius", maxTemperatureCelsius, "°C");
         if (minTemperatureCelsius < ABSOLUTE_ZERO_CELSIUS) {
             throw new StudyOptionsException("tolerance.minTemperatureCelsius",
                     "must not lie below absolute zero, got " + minTemperatureCelsius + " °C");
@@ -53,7 +53,7 @@ public record ToleranceOptions(double resistorTolerance, double resistorTempcoPp
                     "must be at least minTemperatureCelsius (" + minTemperatureCelsius + " °C), got "
                             + maxTemperatureCelsius + " °C");
         }
-        StudyOptionsException.required("tolerance.customOpAmpSpreads", customOpAmpSpreads);
+        StudyOptionsException.RULES.required("tolerance.customOpAmpSpreads", customOpAmpSpreads);
         customOpAmpSpreads = Map.copyOf(customOpAmpSpreads);
         // A relative drift above 100 % would make a resistance negative.
         double drift = resistorTempcoPpmPerKelvin * 1e-6 * Math.max(Math.abs(minTemperatureCelsius - REFERENCE_CELSIUS),

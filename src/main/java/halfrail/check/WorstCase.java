@@ -42,7 +42,7 @@ public final class WorstCase {
      * @throws AnalysisException when the nominal build or a corner cannot be solved
      */
     public static WorstCaseResult run(ToleranceModel model) {
-        StudyOptionsException.required("model", model);
+        StudyOptionsException.RULES.required("model", model);
         BuildEvaluator ev = new BuildEvaluator(model);
         List<ToleranceParameter> params = model.parameters();
         int m = ev.opAmpCount();

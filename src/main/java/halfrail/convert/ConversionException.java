@@ -1,5 +1,7 @@
 package halfrail.convert;
 
+import halfrail.units.FieldRules;
+
 /**
  * A conversion request is invalid. {@link #path()} names the field in the request's own terms
  * (for example {@code original.stages[0].r2Ohms}), so a reader or a dialog can point at it.
@@ -19,24 +21,6 @@ public final class ConversionException extends RuntimeException {
         return path;
     }
 
-    static double positive(String path, double v, String unit) {
-        if (!Double.isFinite(v) || v <= 0) {
-            throw new ConversionException(path, "must be a positive value in " + unit + ", got " + v);
-        }
-        return v;
-    }
-
-    static double nonNegative(String path, double v, String unit) {
-        if (!Double.isFinite(v) || v < 0) {
-            throw new ConversionException(path, "must be zero or a positive value in " + unit + ", got " + v);
-        }
-        return v;
-    }
-
-    static <T> T required(String path, T v) {
-        if (v == null) {
-            throw new ConversionException(path, "is required");
-        }
-        return v;
-    }
+    /** The range rules of this layer's fields, failing with this exception. */
+    static final FieldRules RULES = new FieldRules(ConversionException::new);
 }

@@ -45,7 +45,7 @@ public record ConversionLimits(OptionalDouble maxSettleSeconds, OptionalDouble m
         if (v == null || v.isEmpty()) {
             return OptionalDouble.empty();
         }
-        ConversionException.positive(path, v.getAsDouble(), unit);
+        ConversionException.RULES.positive(path, v.getAsDouble(), unit);
         return v;
     }
 }

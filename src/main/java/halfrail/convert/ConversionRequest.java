@@ -19,11 +19,11 @@ public record ConversionRequest(String name, DualRailChain original, Supply supp
                                 double loadOhms, double loadFarads, ConversionLimits limits) {
     public ConversionRequest {
         name = name == null || name.isBlank() ? "Converted design" : name;
-        ConversionException.required("original", original);
-        ConversionException.required("supply", supply);
-        ConversionException.required("signal", signal);
-        ConversionException.positive("load.ohms", loadOhms, "Ω");
-        ConversionException.nonNegative("load.farads", loadFarads, "F");
+        ConversionException.RULES.required("original", original);
+        ConversionException.RULES.required("supply", supply);
+        ConversionException.RULES.required("signal", signal);
+        ConversionException.RULES.positive("load.ohms", loadOhms, "Ω");
+        ConversionException.RULES.nonNegative("load.farads", loadFarads, "F");
         limits = limits == null ? ConversionLimits.none() : limits;
         if (limits.minRuntimeHours().isPresent() && supply.capacityAmpHours().isEmpty()) {
             throw new ConversionException("limits.minRuntimeHours",

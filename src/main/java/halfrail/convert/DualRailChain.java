@@ -16,7 +16,7 @@ public record DualRailChain(List<DualRailStage> stages, double positiveVolts, do
     public static final int MAX_STAGES = 8;
 
     public DualRailChain {
-        ConversionException.required("original.stages", stages);
+        ConversionException.RULES.required("original.stages", stages);
         if (stages.isEmpty()) {
             throw new ConversionException("original.stages", "the chain needs at least one stage");
         }
@@ -31,8 +31,8 @@ public record DualRailChain(List<DualRailStage> stages, double positiveVolts, do
                         "'" + stages.get(i).name() + "' is used by another stage");
             }
         }
-        ConversionException.positive("original.positiveVolts", positiveVolts, "V");
-        ConversionException.positive("original.negativeVolts", negativeVolts, "V");
+        ConversionException.RULES.positive("original.positiveVolts", positiveVolts, "V");
+        ConversionException.RULES.positive("original.negativeVolts", negativeVolts, "V");
     }
 
     /** The whole chain's gain from the resistor values, V/V. */

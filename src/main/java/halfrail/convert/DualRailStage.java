@@ -18,11 +18,11 @@ public record DualRailStage(String name, StageKind kind, double r1Ohms, double r
         if (name == null || name.isBlank()) {
             throw new ConversionException("name", "is required");
         }
-        ConversionException.required("kind", kind);
-        ConversionException.required("opAmp", opAmp);
+        ConversionException.RULES.required("kind", kind);
+        ConversionException.RULES.required("opAmp", opAmp);
         if (kind != StageKind.FOLLOWER) {
-            ConversionException.positive("r1Ohms", r1Ohms, "Ω");
-            ConversionException.positive("r2Ohms", r2Ohms, "Ω");
+            ConversionException.RULES.positive("r1Ohms", r1Ohms, "Ω");
+            ConversionException.RULES.positive("r2Ohms", r2Ohms, "Ω");
         }
     }
 

@@ -10,11 +10,11 @@ package halfrail.design;
  */
 public record CapacitorSpec(double farads, String technology, double ratedVolts) {
     public CapacitorSpec {
-        DesignException.positive("farads", farads, "F");
+        DesignException.RULES.positive("farads", farads, "F");
         if (technology == null || technology.isBlank()) {
             throw new DesignException("technology", "is required (a capacitor technology id)");
         }
-        DesignException.positive("ratedVolts", ratedVolts, "V");
+        DesignException.RULES.positive("ratedVolts", ratedVolts, "V");
     }
 
     public CapacitorSpec withFarads(double f) {

@@ -21,9 +21,9 @@ public record Design(String name, String description, Supply supply, Reference r
     public Design {
         name = name == null ? "" : name;
         description = description == null ? "" : description;
-        DesignException.required("supply", supply);
-        DesignException.required("reference", reference);
-        DesignException.required("stages", stages);
+        DesignException.RULES.required("supply", supply);
+        DesignException.RULES.required("reference", reference);
+        DesignException.RULES.required("stages", stages);
         stages = List.copyOf(stages);
         if (stages.isEmpty()) {
             throw new DesignException("stages", "a design needs at least one stage");
@@ -34,10 +34,10 @@ public record Design(String name, String description, Supply supply, Reference r
                 throw new DesignException("stages[" + i + "].name", "'" + stages.get(i).name() + "' is used by another stage");
             }
         }
-        DesignException.required("source", source);
-        DesignException.required("load", load);
-        DesignException.required("thresholds", thresholds);
-        DesignException.nonNegative("powerOnRampSeconds", powerOnRampSeconds, "s");
+        DesignException.RULES.required("source", source);
+        DesignException.RULES.required("load", load);
+        DesignException.RULES.required("thresholds", thresholds);
+        DesignException.RULES.nonNegative("powerOnRampSeconds", powerOnRampSeconds, "s");
     }
 
     public Design withSupply(Supply s) {

@@ -63,7 +63,7 @@ public final class DesignCircuits {
      * @throws DesignException when a part id is unknown or a value is invalid
      */
     public static DesignCircuit build(Design design, double supplyVolts, LeakageLevel leakage) {
-        DesignException.positive("supplyVolts", supplyVolts, "V");
+        DesignException.RULES.positive("supplyVolts", supplyVolts, "V");
         return new Builder(design, supplyVolts, leakage).build();
     }
 

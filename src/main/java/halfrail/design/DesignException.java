@@ -1,5 +1,7 @@
 package halfrail.design;
 
+import halfrail.units.FieldRules;
+
 /**
  * A design cannot be turned into a circuit because a value or a choice in it is invalid.
  * {@link #path()} names the part and field in the design's own terms (for example
@@ -20,31 +22,6 @@ public final class DesignException extends RuntimeException {
         return path;
     }
 
-    static double positive(String path, double v, String unit) {
-        if (!Double.isFinite(v) || v <= 0) {
-            throw new DesignException(path, "must be a positive value in " + unit + ", got " + v);
-        }
-        return v;
-    }
-
-    static double nonNegative(String path, double v, String unit) {
-        if (!Double.isFinite(v) || v < 0) {
-            throw new DesignException(path, "must be zero or a positive value in " + unit + ", got " + v);
-        }
-        return v;
-    }
-
-    static double fraction(String path, double v) {
-        if (!Double.isFinite(v) || v < 0 || v > 1) {
-            throw new DesignException(path, "must be a fraction between 0 and 1, got " + v);
-        }
-        return v;
-    }
-
-    static <T> T required(String path, T v) {
-        if (v == null) {
-            throw new DesignException(path, "is required");
-        }
-        return v;
-    }
+    /** The range rules of this layer's fields, failing with this exception. */
+    static final FieldRules RULES = new FieldRules(DesignException::new);
 }

@@ -12,13 +12,13 @@ package halfrail.design;
 public record FixedRail(double volts, double tolerance, double rippleVoltsPeak, double rippleHz, double sourceOhms)
         implements Supply {
     public FixedRail {
-        DesignException.positive("supply.volts", volts, "V");
-        DesignException.fraction("supply.tolerance", tolerance);
-        DesignException.nonNegative("supply.rippleVoltsPeak", rippleVoltsPeak, "V");
+        DesignException.RULES.positive("supply.volts", volts, "V");
+        DesignException.RULES.fraction("supply.tolerance", tolerance);
+        DesignException.RULES.nonNegative("supply.rippleVoltsPeak", rippleVoltsPeak, "V");
         if (rippleVoltsPeak > 0) {
-            DesignException.positive("supply.rippleHz", rippleHz, "Hz");
+            DesignException.RULES.positive("supply.rippleHz", rippleHz, "Hz");
         }
-        DesignException.nonNegative("supply.sourceOhms", sourceOhms, "Ω");
+        DesignException.RULES.nonNegative("supply.sourceOhms", sourceOhms, "Ω");
     }
 
     @Override

@@ -10,7 +10,7 @@ package halfrail.design;
  */
 public record Load(double ohms, double farads, CapacitorSpec outputCapacitor) {
     public Load {
-        DesignException.positive("load.ohms", ohms, "Ω");
-        DesignException.nonNegative("load.farads", farads, "F");
+        DesignException.RULES.positive("load.ohms", ohms, "Ω");
+        DesignException.RULES.nonNegative("load.farads", farads, "F");
     }
 }

@@ -18,17 +18,17 @@ public record Reference(ReferenceKind kind, double upperOhms, double lowerOhms, 
                         CapacitorSpec bufferDecoupling) {
 
     public Reference {
-        DesignException.required("reference.kind", kind);
-        DesignException.positive("reference.upperOhms", upperOhms, "Ω");
-        DesignException.positive("reference.lowerOhms", lowerOhms, "Ω");
+        DesignException.RULES.required("reference.kind", kind);
+        DesignException.RULES.positive("reference.upperOhms", upperOhms, "Ω");
+        DesignException.RULES.positive("reference.lowerOhms", lowerOhms, "Ω");
         if (kind != ReferenceKind.DIVIDER_DIRECT) {
-            DesignException.required("reference.decoupling", decoupling);
-            DesignException.positive("reference.biasOhms", biasOhms, "Ω");
+            DesignException.RULES.required("reference.decoupling", decoupling);
+            DesignException.RULES.positive("reference.biasOhms", biasOhms, "Ω");
         }
         if (kind == ReferenceKind.DIVIDER_BUFFERED) {
-            DesignException.required("reference.buffer", buffer);
-            DesignException.positive("reference.isolationOhms", isolationOhms, "Ω");
-            DesignException.required("reference.bufferDecoupling", bufferDecoupling);
+            DesignException.RULES.required("reference.buffer", buffer);
+            DesignException.RULES.positive("reference.isolationOhms", isolationOhms, "Ω");
+            DesignException.RULES.required("reference.bufferDecoupling", bufferDecoupling);
         }
     }
 

@@ -15,13 +15,13 @@ public record SignalSource(double amplitude, AmplitudeUnit unit, double sourceOh
         if (!Double.isFinite(amplitude)) {
             throw new DesignException("source.amplitude", "must be a finite number, got " + amplitude);
         }
-        DesignException.required("source.unit", unit);
+        DesignException.RULES.required("source.unit", unit);
         if (unit.toVoltsPeak(amplitude) <= 0) {
             throw new DesignException("source.amplitude", "must give a positive peak voltage, got " + amplitude + " " + unit);
         }
-        DesignException.nonNegative("source.sourceOhms", sourceOhms, "Ω");
-        DesignException.positive("source.bandLowHz", bandLowHz, "Hz");
-        DesignException.positive("source.bandHighHz", bandHighHz, "Hz");
+        DesignException.RULES.nonNegative("source.sourceOhms", sourceOhms, "Ω");
+        DesignException.RULES.positive("source.bandLowHz", bandLowHz, "Hz");
+        DesignException.RULES.positive("source.bandHighHz", bandHighHz, "Hz");
         if (bandHighHz <= bandLowHz) {
             throw new DesignException("source.bandHighHz", "must lie above bandLowHz (" + bandLowHz + " Hz)");
         }

@@ -31,11 +31,11 @@ public record Stage(String name, StageKind kind, OpAmpChoice opAmp, double feedb
         if (name == null || name.isBlank()) {
             throw new DesignException("stage.name", "is required");
         }
-        DesignException.required("stage.kind", kind);
-        DesignException.required("stage.opAmp", opAmp);
+        DesignException.RULES.required("stage.kind", kind);
+        DesignException.RULES.required("stage.opAmp", opAmp);
         if (kind != StageKind.FOLLOWER) {
-            DesignException.positive("stage.feedbackOhms", feedbackOhms, "Ω");
-            DesignException.positive("stage.legOhms", legOhms, "Ω");
+            DesignException.RULES.positive("stage.feedbackOhms", feedbackOhms, "Ω");
+            DesignException.RULES.positive("stage.legOhms", legOhms, "Ω");
         }
     }
 

@@ -26,20 +26,20 @@ public record Thresholds(double settleBandFraction, double maxSettleSeconds, dou
                          double capacitorDeratingOverride) {
 
     public Thresholds {
-        DesignException.positive("thresholds.settleBandFraction", settleBandFraction, "");
-        DesignException.positive("thresholds.maxSettleSeconds", maxSettleSeconds, "s");
+        DesignException.RULES.positive("thresholds.settleBandFraction", settleBandFraction, "");
+        DesignException.RULES.positive("thresholds.maxSettleSeconds", maxSettleSeconds, "s");
         if (!Double.isFinite(minHeadroomDb)) {
             throw new DesignException("thresholds.minHeadroomDb", "must be finite");
         }
-        DesignException.nonNegative("thresholds.offCentreDb", offCentreDb, "dB");
-        DesignException.fraction("thresholds.nearRailFraction", nearRailFraction);
-        DesignException.positive("thresholds.maxLeakageDriftVolts", maxLeakageDriftVolts, "V");
-        DesignException.positive("thresholds.maxRippleVolts", maxRippleVolts, "V");
-        DesignException.positive("thresholds.maxBiasShiftVolts", maxBiasShiftVolts, "V");
-        DesignException.positive("thresholds.maxStepVolts", maxStepVolts, "V");
-        DesignException.positive("thresholds.maxStageGain", maxStageGain, "V/V");
-        DesignException.positive("thresholds.maxFeedbackOhms", maxFeedbackOhms, "Ω");
-        DesignException.nonNegative("thresholds.minRuntimeHours", minRuntimeHours, "h");
+        DesignException.RULES.nonNegative("thresholds.offCentreDb", offCentreDb, "dB");
+        DesignException.RULES.fraction("thresholds.nearRailFraction", nearRailFraction);
+        DesignException.RULES.positive("thresholds.maxLeakageDriftVolts", maxLeakageDriftVolts, "V");
+        DesignException.RULES.positive("thresholds.maxRippleVolts", maxRippleVolts, "V");
+        DesignException.RULES.positive("thresholds.maxBiasShiftVolts", maxBiasShiftVolts, "V");
+        DesignException.RULES.positive("thresholds.maxStepVolts", maxStepVolts, "V");
+        DesignException.RULES.positive("thresholds.maxStageGain", maxStageGain, "V/V");
+        DesignException.RULES.positive("thresholds.maxFeedbackOhms", maxFeedbackOhms, "Ω");
+        DesignException.RULES.nonNegative("thresholds.minRuntimeHours", minRuntimeHours, "h");
         if (!Double.isFinite(capacitorDeratingOverride) || capacitorDeratingOverride > 1) {
             throw new DesignException("thresholds.capacitorDeratingOverride", "must be at most 1 (0 or less: use each technology's own)");
         }

@@ -19,9 +19,9 @@ public record UsbPort(double rippleVoltsPeak, double rippleHz) implements Supply
     public static final double SOURCE_OHMS = 0.3;
 
     public UsbPort {
-        DesignException.nonNegative("supply.rippleVoltsPeak", rippleVoltsPeak, "V");
+        DesignException.RULES.nonNegative("supply.rippleVoltsPeak", rippleVoltsPeak, "V");
         if (rippleVoltsPeak > 0) {
-            DesignException.positive("supply.rippleHz", rippleHz, "Hz");
+            DesignException.RULES.positive("supply.rippleHz", rippleHz, "Hz");
         }
     }
 
