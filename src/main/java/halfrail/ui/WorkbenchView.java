@@ -36,6 +36,7 @@ public final class WorkbenchView extends BorderPane {
     private final ReadingsPanel readings;
     private final SupplyTrialBar trial;
     private final ChainCanvas chain;
+    private final SchematicCanvas schematic;
     private final HeadroomChart headroomChart;
     private final MonteCarloPanel monteCarlo;
     private final DividerTradeoffChart tradeoffChart;
@@ -84,7 +85,11 @@ public final class WorkbenchView extends BorderPane {
         javafx.scene.control.Tab tradeTab = new javafx.scene.control.Tab("Battery trade-off", tradeoffChart);
         tradeTab.setId("tradeoff-tab");
         model.tradeoff().wantedProperty().bind(tradeTab.selectedProperty());
-        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab);
+        schematic = new SchematicCanvas(model.schematic());
+        schematic.paletteProperty().bind(palette);
+        javafx.scene.control.Tab circuitTab = new javafx.scene.control.Tab("Circuit", schematic);
+        circuitTab.setId("circuit-tab");
+        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab, circuitTab);
         bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
         middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
@@ -417,6 +422,11 @@ public final class WorkbenchView extends BorderPane {
 
     public MonteCarloPanel monteCarlo() {
         return monteCarlo;
+    }
+
+    /** The circuit drawing (in the last tab). */
+    public SchematicCanvas schematic() {
+        return schematic;
     }
 
     public ChainCanvas chain() {

@@ -109,6 +109,26 @@ class RenderScreens {
         assertTrue(Files.size(file) > 10_000);
     }
 
+    @Test
+    void rendersTheCircuitDrawing() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(6);
+        }, "circuit.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersTheCircuitDrawingOfATwoStageDesignWithAFindingSelected() throws Exception {
+        Path file = render(SampleDesigns.missingLegCapacitor(), v -> {
+            v.model().editor().addStage();
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(6);
+            v.findings().list().getSelectionModel().select(0);
+        }, "circuit-faulty.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
     /** Render a window on {@code design} after {@code prepare} has acted on it (on the FX thread). */
     static Path render(halfrail.design.Design design, java.util.function.Consumer<WorkbenchView> prepare, String name)
             throws Exception {
