@@ -22,6 +22,11 @@ public final class HeadroomChart extends LineChart<Number, Number> {
         setCreateSymbols(true);
         setLegendVisible(true);
         ((NumberAxis) getXAxis()).setForceZeroInRange(false);
+        ChartTips.axis(getXAxis(), "Supply voltage, from the battery's end-point (flat) to fresh: both swing limits move with it.");
+        ChartTips.axis(getYAxis(), "Headroom: 20·log10(available swing ÷ signal peak) on the side nearer a rail. "
+                + "At 0 dB the signal's peak just reaches the swing limit; below it the stage clips.");
+        ChartTips.readout(this, (s, d) -> String.format(java.util.Locale.ROOT, "%s%nat %.2f V supply: headroom %.1f dB",
+                s.getName(), d.getXValue().doubleValue(), d.getYValue().doubleValue()));
         model.curves().addListener((ListChangeListener<HeadroomSweepModel.Curve>) c -> redraw());
         model.limitDbProperty().addListener((o, was, now) -> redraw());
         redraw();

@@ -269,7 +269,28 @@ public final class WorkbenchView extends BorderPane {
         darkItem.setId("dark");
         darkItem.selectedProperty().bindBidirectional(model.darkProperty());
         darkItem.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+D"));
-        look.getItems().add(darkItem);
+        look.getItems().addAll(darkItem, new SeparatorMenuItem());
+        // the tabs under the ladders by number, in their order (Shortcut+1 … Shortcut+7)
+        for (int i = 0; i < bottomTabs.getTabs().size() && i < 9; i++) {
+            javafx.scene.control.Tab tab = bottomTabs.getTabs().get(i);
+            MenuItem go = new MenuItem("Show " + tab.getText());
+            go.setAccelerator(KeyCombination.keyCombination("Shortcut+" + (i + 1)));
+            go.setOnAction(e -> bottomTabs.getSelectionModel().select(tab));
+            look.getItems().add(go);
+        }
+        MenuItem study = new MenuItem("Run the Monte Carlo study");
+        study.setId("run-study");
+        study.setAccelerator(KeyCombination.keyCombination("Shortcut+R"));
+        study.setOnAction(e -> {
+            bottomTabs.getTabs().stream().filter(t -> "monte-carlo-tab".equals(t.getId())).findFirst()
+                    .ifPresent(t -> bottomTabs.getSelectionModel().select(t));
+            model.monteCarlo().run();
+        });
+        edit.getItems().addAll(new SeparatorMenuItem(), study);
+        design.setMnemonicParsing(true);
+        design.setText("_Design");
+        edit.setText("_Edit");
+        look.setText("_View");
         return new MenuBar(design, edit, look);
     }
 
