@@ -147,7 +147,8 @@ public final class DividerTradeoffChart extends VBox {
             chart.getData().add(mine);
             mine.getData().forEach(d -> {
                 d.getNode().getStyleClass().add("chosen-mark");
-                d.getNode().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: #2b2d31, #ffd84d;");
+                // a grey edge and a yellow face read on the light and the dark paper alike
+                d.getNode().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: #8a8f98, #ffd84d;");
             });
         }
         chart.applyCss();

@@ -32,7 +32,7 @@ public final class HeadroomChart extends LineChart<Number, Number> {
         redraw();
     }
 
-    /** The curves' colours in the order halfrail.css gives them (default-color0 to 3). */
+    /** The curves' colours in the light appearance, in the order halfrail.css gives them (default-color0 to 3; the marks' mark-colour0 to 3). */
     static final String[] CURVE_COLOURS = {"#3b3f9e", "#138a7e", "#8a4f7d", "#b8860b"};
     /** A diamond mark, larger than a curve's points. */
     static final String MARK_STYLE = "-fx-shape: \"M5,0 L10,5 L5,10 L0,5 Z\"; -fx-background-radius: 0; -fx-padding: 7px; "
@@ -73,14 +73,14 @@ public final class HeadroomChart extends LineChart<Number, Number> {
         int index = 0;
         for (HeadroomSweepModel.Curve c : model.curves()) {
             // the mark sits on the limit line at the lowest passing supply, in its curve's colour (no legend entry of its own)
-            String colour = CURVE_COLOURS[index++ % CURVE_COLOURS.length];
+            String colour = "mark-colour" + (index++ % CURVE_COLOURS.length);
             c.markVolts().ifPresent(v -> {
                 XYChart.Series<Number, Number> mark = new XYChart.Series<>();
                 mark.getData().add(new XYChart.Data<>(v, model.limitDbProperty().get()));
                 getData().add(mark);
                 mark.getData().forEach(d -> {
-                    d.getNode().getStyleClass().add("lowest-supply-mark");
-                    d.getNode().setStyle(MARK_STYLE + "-fx-background-color: " + colour + ", white;");
+                    d.getNode().getStyleClass().addAll("lowest-supply-mark", colour);
+                    d.getNode().setStyle(MARK_STYLE);
                 });
             });
         }
