@@ -357,7 +357,7 @@ public final class SchematicGeometry {
             dot(xl, Y_OUT);
             capacitor(cl.get(), right, Y_OUT, right, Y_GROUND);
         }
-        return right + 96;
+        return right + 16;
     }
 
     /** The bus reaches over to {@code x}. */

@@ -112,6 +112,8 @@ class RenderScreens {
     @Test
     void rendersTheCircuitDrawing() throws Exception {
         Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            // the editor and the findings narrowed by hand, so that the whole one-stage circuit is in view
+            ((javafx.scene.control.SplitPane) v.getCenter()).setDividerPositions(0.2, 0.8);
             v.middleSplit().setDividerPositions(0.45);
             v.bottomTabs().getSelectionModel().select(6);
         }, "circuit.png");
