@@ -18,6 +18,21 @@ import java.util.function.Consumer;
 public final class BackgroundAnalysisExecutor implements AnalysisExecutor {
     private static final AtomicInteger WORKERS = new AtomicInteger();
 
+    private final java.util.function.UnaryOperator<Runnable> onFxThread;
+
+    /** An executor whose FX-thread callbacks run as they are. */
+    public BackgroundAnalysisExecutor() {
+        this(java.util.function.UnaryOperator.identity());
+    }
+
+    /**
+     * An executor that hands every callback and update through {@code onFxThread} before posting
+     * it to the FX thread (tests wrap them to time how long each holds the FX thread).
+     */
+    public BackgroundAnalysisExecutor(java.util.function.UnaryOperator<Runnable> onFxThread) {
+        this.onFxThread = java.util.Objects.requireNonNull(onFxThread, "onFxThread");
+    }
+
     private final ExecutorService worker = Executors.newSingleThreadExecutor(r -> {
         Thread t = new Thread(r, "halfrail-analysis-" + WORKERS.incrementAndGet());
         t.setDaemon(true);
@@ -33,17 +48,17 @@ public final class BackgroundAnalysisExecutor implements AnalysisExecutor {
             }
             try {
                 T result = work.call();
-                Platform.runLater(() -> {
+                Platform.runLater(onFxThread.apply(() -> {
                     if (!job.cancelled()) {
                         onResult.accept(result);
                     }
-                });
+                }));
             } catch (Exception | Error e) {
-                Platform.runLater(() -> {
+                Platform.runLater(onFxThread.apply(() -> {
                     if (!job.cancelled()) {
                         onFailure.accept(e);
                     }
-                });
+                }));
             }
         });
         return job;
@@ -51,7 +66,7 @@ public final class BackgroundAnalysisExecutor implements AnalysisExecutor {
 
     @Override
     public void post(Runnable update) {
-        Platform.runLater(update);
+        Platform.runLater(onFxThread.apply(update));
     }
 
     @Override

@@ -46,6 +46,22 @@ public final class DividerTradeoffChart extends VBox {
         timing = chart("reference time, s", DecadeAxis.of("reference time", "s"));
         timing.setHorizontalZeroLineVisible(false);
         runtime = chart("battery runtime, h", new NumberAxis());
+        String current = "Current through the mid-rail divider, Vs ÷ (Ra + Rb), drawn from the battery all the time (logarithmic).";
+        for (LineChart<Number, Number> c : new LineChart[] {shift, timing, runtime}) {
+            ChartTips.axis(c.getXAxis(), current);
+        }
+        ChartTips.axis(shift.getYAxis(), "How far the op-amps' input bias currents move the rest points: about Ib × the "
+                + "reference's Thevenin resistance Ra‖Rb (plus the bias resistor).");
+        ChartTips.axis(timing.getYAxis(), "The reference's time constant (Ra‖Rb)·C, which also sets its ripple-filter corner "
+                + "1/(2π·(Ra‖Rb)·C), and the settle-up time of a power-on run (logarithmic).");
+        ChartTips.axis(runtime.getYAxis(), "Battery runtime at the design's total supply current, from the cell's planning capacity.");
+        ChartTips.readout(shift, (s, d) -> String.format(java.util.Locale.ROOT, "%s divider current: rest points move %.2f mV",
+                DecadeAxis.engineering(Math.pow(10, d.getXValue().doubleValue()), "A"), d.getYValue().doubleValue()));
+        ChartTips.readout(timing, (s, d) -> String.format(java.util.Locale.ROOT, "%s%n%s divider current: %s", s.getName(),
+                DecadeAxis.engineering(Math.pow(10, d.getXValue().doubleValue()), "A"),
+                DecadeAxis.engineering(Math.pow(10, d.getYValue().doubleValue()), "s")));
+        ChartTips.readout(runtime, (s, d) -> String.format(java.util.Locale.ROOT, "%s divider current: runtime %.0f h",
+                DecadeAxis.engineering(Math.pow(10, d.getXValue().doubleValue()), "A"), d.getYValue().doubleValue()));
         HBox charts = new HBox(4, shift, timing, runtime);
         for (LineChart<Number, Number> c : new LineChart[] {shift, timing, runtime}) {
             HBox.setHgrow(c, Priority.ALWAYS);
@@ -131,7 +147,8 @@ public final class DividerTradeoffChart extends VBox {
             chart.getData().add(mine);
             mine.getData().forEach(d -> {
                 d.getNode().getStyleClass().add("chosen-mark");
-                d.getNode().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: #2b2d31, #ffd84d;");
+                // a grey edge and a yellow face read on the light and the dark paper alike
+                d.getNode().setStyle(HeadroomChart.MARK_STYLE + "-fx-background-color: #8a8f98, #ffd84d;");
             });
         }
         chart.applyCss();

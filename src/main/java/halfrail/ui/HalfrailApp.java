@@ -34,8 +34,12 @@ public class HalfrailApp extends Application {
         fileActions = Optional.ofNullable(actions);
     }
 
+    /** When {@link #start} was called, ns ({@link System#nanoTime}). */
+    private long startedNanos;
+
     @Override
     public void start(Stage stage) {
+        startedNanos = System.nanoTime();
         executor = new BackgroundAnalysisExecutor();
         studies = new BackgroundAnalysisExecutor();
         model = new WorkbenchModel(executor, studies, SampleDesigns.instrumentBoost(), fileActions);
@@ -48,6 +52,9 @@ public class HalfrailApp extends Application {
             model.useRecovery(recovery);
         }
         WorkbenchView view = new WorkbenchView(model);
+        if (Boolean.getBoolean(EXIT_AFTER_FIRST_ANALYSIS)) {
+            exitOnceAnalysed(view);
+        }
         stage.setTitle("Halfrail — single-supply stage checker");
         stage.setScene(scene(view));
         stage.setOnCloseRequest(e -> {
@@ -70,6 +77,37 @@ public class HalfrailApp extends Application {
     }
 
     private javafx.animation.Timeline autosave;
+
+    /**
+     * System property: when {@code true} the app quits as soon as the first analysis is on screen,
+     * after printing the time since {@link #start} was called ({@code bench/startup.sh} times start-up with it).
+     */
+    public static final String EXIT_AFTER_FIRST_ANALYSIS = "halfrail.exitAfterFirstAnalysis";
+
+    /** Quit once the first report has been laid out and drawn (the pulse after it arrived). */
+    private void exitOnceAnalysed(WorkbenchView view) {
+        javafx.beans.value.ChangeListener<halfrail.check.DesignReport> once = new javafx.beans.value.ChangeListener<>() {
+            @Override
+            public void changed(javafx.beans.value.ObservableValue<? extends halfrail.check.DesignReport> o,
+                                halfrail.check.DesignReport was, halfrail.check.DesignReport now) {
+                if (now == null || view.getScene() == null) {
+                    return;
+                }
+                o.removeListener(this);
+                javafx.scene.Scene scene = view.getScene();
+                Runnable[] drawn = new Runnable[1];
+                drawn[0] = () -> {
+                    scene.removePostLayoutPulseListener(drawn[0]);
+                    long ms = (System.nanoTime() - startedNanos) / 1_000_000;
+                    System.out.println("first analysis shown " + ms + " ms after the toolkit started the app");
+                    javafx.application.Platform.exit();
+                };
+                scene.addPostLayoutPulseListener(drawn[0]);
+                javafx.application.Platform.requestNextPulse();
+            }
+        };
+        view.model().reportProperty().addListener(once);
+    }
 
     /** A recovery file from a session that did not close normally: offer to restore it. */
     private void offerRecovery(RecoveryStore recovery) {

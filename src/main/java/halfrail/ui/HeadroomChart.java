@@ -22,12 +22,17 @@ public final class HeadroomChart extends LineChart<Number, Number> {
         setCreateSymbols(true);
         setLegendVisible(true);
         ((NumberAxis) getXAxis()).setForceZeroInRange(false);
+        ChartTips.axis(getXAxis(), "Supply voltage, from the battery's end-point (flat) to fresh: both swing limits move with it.");
+        ChartTips.axis(getYAxis(), "Headroom: 20·log10(available swing ÷ signal peak) on the side nearer a rail. "
+                + "At 0 dB the signal's peak just reaches the swing limit; below it the stage clips.");
+        ChartTips.readout(this, (s, d) -> String.format(java.util.Locale.ROOT, "%s%nat %.2f V supply: headroom %.1f dB",
+                s.getName(), d.getXValue().doubleValue(), d.getYValue().doubleValue()));
         model.curves().addListener((ListChangeListener<HeadroomSweepModel.Curve>) c -> redraw());
         model.limitDbProperty().addListener((o, was, now) -> redraw());
         redraw();
     }
 
-    /** The curves' colours in the order halfrail.css gives them (default-color0 to 3). */
+    /** The curves' colours in the light appearance, in the order halfrail.css gives them (default-color0 to 3; the marks' mark-colour0 to 3). */
     static final String[] CURVE_COLOURS = {"#3b3f9e", "#138a7e", "#8a4f7d", "#b8860b"};
     /** A diamond mark, larger than a curve's points. */
     static final String MARK_STYLE = "-fx-shape: \"M5,0 L10,5 L5,10 L0,5 Z\"; -fx-background-radius: 0; -fx-padding: 7px; "
@@ -68,14 +73,14 @@ public final class HeadroomChart extends LineChart<Number, Number> {
         int index = 0;
         for (HeadroomSweepModel.Curve c : model.curves()) {
             // the mark sits on the limit line at the lowest passing supply, in its curve's colour (no legend entry of its own)
-            String colour = CURVE_COLOURS[index++ % CURVE_COLOURS.length];
+            String colour = "mark-colour" + (index++ % CURVE_COLOURS.length);
             c.markVolts().ifPresent(v -> {
                 XYChart.Series<Number, Number> mark = new XYChart.Series<>();
                 mark.getData().add(new XYChart.Data<>(v, model.limitDbProperty().get()));
                 getData().add(mark);
                 mark.getData().forEach(d -> {
-                    d.getNode().getStyleClass().add("lowest-supply-mark");
-                    d.getNode().setStyle(MARK_STYLE + "-fx-background-color: " + colour + ", white;");
+                    d.getNode().getStyleClass().addAll("lowest-supply-mark", colour);
+                    d.getNode().setStyle(MARK_STYLE);
                 });
             });
         }

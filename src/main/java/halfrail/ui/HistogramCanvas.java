@@ -90,11 +90,12 @@ public final class HistogramCanvas extends Region {
             return;
         }
         geometry = new HistogramGeometry(c.histogram(), w, h, c.marker());
-        g.setFont(Font.font("System", FontWeight.BOLD, 10.5));
+        Font titleFont = Font.font("System", FontWeight.BOLD, 10.5);
+        g.setFont(titleFont);
         g.setFill(p.ink());
         g.setTextAlign(TextAlignment.LEFT);
         g.setTextBaseline(VPos.TOP);
-        g.fillText(c.title(), HistogramGeometry.LEFT, 3);
+        g.fillText(fitted(c.title(), titleFont, w - HistogramGeometry.LEFT - 4), HistogramGeometry.LEFT, 3);
         g.setFont(Font.font("System", 10));
         g.setFill(p.signal());
         for (HistogramGeometry.Bar b : geometry.bars()) {
@@ -134,4 +135,30 @@ public final class HistogramCanvas extends Region {
             g.fillText(c.markerLabel(), right ? x + 3 : x - 3, geometry.topY());
         });
     }
+
+    /**
+     * {@code text} as it fits in {@code widthPx}: whole, else without its last clauses (after ", "
+     * or " — "; the tooltip keeps the whole title), else cut with an ellipsis.
+     */
+    static String fitted(String text, Font font, double widthPx) {
+        String t = text;
+        while (width(t, font) > widthPx) {
+            int cut = Math.max(t.lastIndexOf(", "), t.lastIndexOf(" — "));
+            if (cut <= 0) {
+                while (t.length() > 1 && width(t + "…", font) > widthPx) {
+                    t = t.substring(0, t.length() - 1);
+                }
+                return t + "…";
+            }
+            t = t.substring(0, cut);
+        }
+        return t;
+    }
+
+    private static double width(String s, Font font) {
+        javafx.scene.text.Text probe = new javafx.scene.text.Text(s);
+        probe.setFont(font);
+        return probe.getLayoutBounds().getWidth();
+    }
+
 }

@@ -96,12 +96,16 @@ public final class MonteCarloPanel extends VBox {
         run.setId("mc-run");
         run.setDefaultButton(false);
         run.setOnAction(e -> model.run());
+        run.setTooltip(new Tooltip("Draw the builds in the background; the window stays usable. Each build's quiescent "
+                + "points and headroom are solved at the nominal supply."));
         Button stop = new Button("Stop");
+        stop.setTooltip(new Tooltip("Stop the study; the builds drawn so far are kept."));
         stop.setId("mc-cancel");
         stop.setOnAction(e -> model.cancel());
         ProgressBar bar = new ProgressBar(0);
         bar.setId("mc-progress");
         bar.setPrefWidth(160);
+        bar.setTooltip(new Tooltip("Builds solved so far."));
         bar.progressProperty().bind(Bindings.createDoubleBinding(
                 () -> model.totalProperty().get() == 0 ? 0 : (double) model.doneProperty().get() / model.totalProperty().get(),
                 model.doneProperty(), model.totalProperty()));
@@ -139,6 +143,8 @@ public final class MonteCarloPanel extends VBox {
 
         summary.setId("mc-summary");
         summary.setWrapText(true);
+        summary.setTooltip(new Tooltip("Yield: the share of builds with no failing finding. Worst build: the one with the "
+                + "least headroom (the signal's peak against the nearer swing limit)."));
         worst.setId("mc-worst");
         worst.setMinWidth(javafx.scene.layout.Region.USE_PREF_SIZE);
         worst.setOnAction(e -> model.openWorstBuild());

@@ -20,6 +20,11 @@ public final class PowerOnChart extends LineChart<Number, Number> {
         setAnimated(false);
         setCreateSymbols(false);
         setTitle("Power-on: outputs and load from switch-on, every capacitor empty");
+        ChartTips.axis(getXAxis(), "Time after the supply is switched on, every capacitor empty at the start.");
+        ChartTips.axis(getYAxis(), "Voltage to ground of each op-amp output and of the load. Settle-up: the last moment "
+                + "any of them leaves the band around its final value.");
+        ChartTips.readout(this, (s, d) -> String.format(java.util.Locale.ROOT, "%s%n%s after switch-on: %s",
+                s.getName(), DecadeAxis.engineering(d.getXValue().doubleValue(), "s"), DecadeAxis.engineering(d.getYValue().doubleValue(), "V")));
         model.powerOnProperty().addListener((o, was, now) -> redraw(now));
         redraw(model.powerOnProperty().get());
     }

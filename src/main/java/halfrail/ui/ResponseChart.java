@@ -21,6 +21,11 @@ public final class ResponseChart extends LineChart<Number, Number> {
         setCreateSymbols(false);
         setTitle("Gain from the source; dashed: where the band starts");
         setVerticalZeroLineVisible(false);
+        ChartTips.axis(getXAxis(), "Signal frequency (logarithmic). The coupling and feedback-leg capacitors make "
+                + "first-order high-pass corners; their cascade sets the lower −3 dB point.");
+        ChartTips.axis(getYAxis(), "Small-signal gain from the source to the point named, 20·log10(Vout ÷ Vsource).");
+        ChartTips.readout(this, (s, d) -> String.format(java.util.Locale.ROOT, "%s%nat %s: %.1f dB",
+                s.getName(), DecadeAxis.engineering(Math.pow(10, d.getXValue().doubleValue()), "Hz"), d.getYValue().doubleValue()));
         model.chainProperty().addListener((o, was, now) -> redraw(now));
         redraw(model.chainProperty().get());
     }

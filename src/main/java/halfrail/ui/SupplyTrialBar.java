@@ -18,7 +18,7 @@ import java.util.Locale;
  */
 public final class SupplyTrialBar extends HBox {
     private final Slider slider = new Slider();
-    private final CheckBox on = new CheckBox("Supply trial");
+    private final CheckBox on = new CheckBox("Supply _trial");
 
     public SupplyTrialBar(WorkbenchModel model) {
         super(8);
@@ -35,6 +35,8 @@ public final class SupplyTrialBar extends HBox {
         slider.valueProperty().bindBidirectional(model.trialVoltsProperty());
         slider.disableProperty().bind(on.selectedProperty().not());
         slider.setBlockIncrement(0.1);
+        slider.setFocusTraversable(true);
+        slider.setTooltip(new Tooltip("Supply voltage to try, from the battery's end-point to fresh; arrow keys move it by 0.1 V."));
         HBox.setHgrow(slider, Priority.ALWAYS);
         Label low = new Label();
         low.textProperty().bind(model.trialLowVoltsProperty().asString(Locale.ROOT, "end-point %.2f V"));

@@ -74,6 +74,7 @@ public final class WorkbenchModel {
     private final FindingsPanelModel findings = new FindingsPanelModel();
     private final ReadingsPanelModel readings = new ReadingsPanelModel();
     private final ChainPanelModel chain = new ChainPanelModel();
+    private final SchematicModel schematic = new SchematicModel();
     private final HeadroomSweepModel headroom;
     private final MonteCarloModel monteCarlo;
     private final DividerTradeoffModel tradeoff;
@@ -120,6 +121,7 @@ public final class WorkbenchModel {
         findings.selectedProperty().addListener((o, was, now) -> focusOn(now));
         ladders.setLevelPicker((opAmp, level) -> findings.selectFirst(opAmp, level));
         chain.setPicker(findings::selectFirstAbout);
+        schematic.setPicker(findings::selectFirstAbout);
         trialActive.addListener((o, was, now) -> analyse());
         trialVolts.addListener((o, was, now) -> {
             if (trialActive.get()) {
@@ -272,6 +274,7 @@ public final class WorkbenchModel {
         findings.show(r.findings());
         readings.show(r);
         chain.show(r);
+        schematic.show(r);
         long fails = r.findings().stream().filter(f -> f.severity() == Severity.FAIL).count();
         long warns = r.findings().stream().filter(f -> f.severity() == Severity.WARN).count();
         String where = trialActive.get() ? String.format(" at a trial supply of %.2f V", trialVolts.get()) : "";
@@ -304,6 +307,7 @@ public final class WorkbenchModel {
         ladders.clear();
         plots.clear();
         chain.clear();
+        schematic.clear("Not drawn: the design could not be analysed.");
         findings.show(List.of(f));
         readings.clear();
         status.set("Not analysed: " + e.getMessage());
@@ -319,11 +323,13 @@ public final class WorkbenchModel {
             ladders.highlight(null);
             editor.highlight(java.util.List.of());
             chain.spotlight(java.util.List.of());
+            schematic.spotlight(java.util.List.of());
             return;
         }
         ladders.highlight(f.opAmp().map(op -> new LadderPanelModel.Focus(op, f.level().orElse(null))).orElse(null));
         editor.highlight(f.parts());
         chain.spotlight(f.parts());
+        schematic.spotlight(f.parts());
     }
 
     // ---- files -----------------------------------------------------------------------------
@@ -569,6 +575,11 @@ public final class WorkbenchModel {
 
     public MonteCarloModel monteCarlo() {
         return monteCarlo;
+    }
+
+    /** The circuit drawing's view-model. */
+    public SchematicModel schematic() {
+        return schematic;
     }
 
     public ChainPanelModel chain() {

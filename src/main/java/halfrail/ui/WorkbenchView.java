@@ -36,6 +36,7 @@ public final class WorkbenchView extends BorderPane {
     private final ReadingsPanel readings;
     private final SupplyTrialBar trial;
     private final ChainCanvas chain;
+    private final SchematicCanvas schematic;
     private final HeadroomChart headroomChart;
     private final MonteCarloPanel monteCarlo;
     private final DividerTradeoffChart tradeoffChart;
@@ -84,7 +85,11 @@ public final class WorkbenchView extends BorderPane {
         javafx.scene.control.Tab tradeTab = new javafx.scene.control.Tab("Battery trade-off", tradeoffChart);
         tradeTab.setId("tradeoff-tab");
         model.tradeoff().wantedProperty().bind(tradeTab.selectedProperty());
-        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab);
+        schematic = new SchematicCanvas(model.schematic());
+        schematic.paletteProperty().bind(palette);
+        javafx.scene.control.Tab circuitTab = new javafx.scene.control.Tab("Circuit", schematic);
+        circuitTab.setId("circuit-tab");
+        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab, circuitTab);
         bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
         middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
@@ -264,7 +269,28 @@ public final class WorkbenchView extends BorderPane {
         darkItem.setId("dark");
         darkItem.selectedProperty().bindBidirectional(model.darkProperty());
         darkItem.setAccelerator(KeyCombination.keyCombination("Shortcut+Shift+D"));
-        look.getItems().add(darkItem);
+        look.getItems().addAll(darkItem, new SeparatorMenuItem());
+        // the tabs under the ladders by number, in their order (Shortcut+1 … Shortcut+7)
+        for (int i = 0; i < bottomTabs.getTabs().size() && i < 9; i++) {
+            javafx.scene.control.Tab tab = bottomTabs.getTabs().get(i);
+            MenuItem go = new MenuItem("Show " + tab.getText());
+            go.setAccelerator(KeyCombination.keyCombination("Shortcut+" + (i + 1)));
+            go.setOnAction(e -> bottomTabs.getSelectionModel().select(tab));
+            look.getItems().add(go);
+        }
+        MenuItem study = new MenuItem("Run the Monte Carlo study");
+        study.setId("run-study");
+        study.setAccelerator(KeyCombination.keyCombination("Shortcut+R"));
+        study.setOnAction(e -> {
+            bottomTabs.getTabs().stream().filter(t -> "monte-carlo-tab".equals(t.getId())).findFirst()
+                    .ifPresent(t -> bottomTabs.getSelectionModel().select(t));
+            model.monteCarlo().run();
+        });
+        edit.getItems().addAll(new SeparatorMenuItem(), study);
+        design.setMnemonicParsing(true);
+        design.setText("_Design");
+        edit.setText("_Edit");
+        look.setText("_View");
         return new MenuBar(design, edit, look);
     }
 
@@ -417,6 +443,11 @@ public final class WorkbenchView extends BorderPane {
 
     public MonteCarloPanel monteCarlo() {
         return monteCarlo;
+    }
+
+    /** The circuit drawing (in the last tab). */
+    public SchematicCanvas schematic() {
+        return schematic;
     }
 
     public ChainCanvas chain() {

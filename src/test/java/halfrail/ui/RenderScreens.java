@@ -195,6 +195,48 @@ class RenderScreens {
         return file;
     }
 
+    @Test
+    void rendersTheCircuitDrawing() throws Exception {
+        Path file = render(SampleDesigns.instrumentBoost(), v -> {
+            // the editor and the findings narrowed by hand, so that the whole one-stage circuit is in view
+            ((javafx.scene.control.SplitPane) v.getCenter()).setDividerPositions(0.2, 0.8);
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(6);
+        }, "circuit.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersTheCircuitDrawingOfATwoStageDesignWithAFindingSelected() throws Exception {
+        Path file = render(SampleDesigns.missingLegCapacitor(), v -> {
+            v.model().editor().addStage();
+            v.middleSplit().setDividerPositions(0.45);
+            v.bottomTabs().getSelectionModel().select(6);
+            v.findings().list().getSelectionModel().select(0);
+        }, "circuit-faulty.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
+    void rendersThePlotsInTheDarkAppearance() throws Exception {
+        for (int tab : new int[] {1, 2, 3, 4, 5, 6}) {
+            String name = new String[] {"", "headroom", "power-on", "response", "battery-tradeoff", "monte-carlo", "circuit"}[tab];
+            Path file = render(SampleDesigns.instrumentBoost(), v -> {
+                v.model().darkProperty().set(true);
+                if (tab == 1) {
+                    v.model().editor().addStage();
+                }
+                v.middleSplit().setDividerPositions(0.45);
+                v.bottomTabs().getSelectionModel().select(tab);
+                if (tab == 5) {
+                    v.model().monteCarlo().buildsProperty().set(10_000);
+                    v.model().monteCarlo().run();
+                }
+            }, name + "-dark.png");
+            assertTrue(Files.size(file) > 10_000);
+        }
+    }
+
     /** Render a window on {@code design} after {@code prepare} has acted on it (on the FX thread). */
     static Path render(halfrail.design.Design design, java.util.function.Consumer<WorkbenchView> prepare, String name)
             throws Exception {
