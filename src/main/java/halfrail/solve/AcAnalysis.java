@@ -49,38 +49,110 @@ public final class AcAnalysis {
     /** Most evaluations of |H| spent solving for one −3 dB point (bracketing Brent solver). */
     public static final int MAX_CORNER_EVALUATIONS = 200;
 
+    /**
+     * Systems of at least this many unknowns are factored with {@link SparseComplexLu} on the
+     * circuit's pattern (its fill-reducing order made once per {@link MnaSystem} and shared,
+     * the pivot order and factor patterns kept from one frequency to the next); smaller ones with
+     * {@link DenseComplexLu}, whose tight loops win there.
+     */
+    static final int SPARSE_FROM_UNKNOWNS = 12;
+    /**
+     * Most doubles the solutions kept for reuse may hold (4 MB). Passband searches over the same
+     * range for different outputs ask for the same grid frequencies, and the solution at a
+     * frequency holds every node: each frequency is factored and solved once per input.
+     */
+    static final int KEPT_SOLUTION_DOUBLES = 1 << 19;
+
     private final MnaSystem system;
     private final OperatingPoint operatingPoint;
     private final int n;
+    private final double[] xRe;
+    private final double[] xIm;
+    // Dense path.
     private final double[][] g;
     private final double[][] c;
     private final double[][] workRe;
     private final double[][] workIm;
-    private final double[] xRe;
-    private final double[] xIm;
     private final ComplexLinearSolver lu;
+    // Sparse path.
+    private final MnaSystem.Pattern pattern;
+    private final double[] gValues;
+    private final double[] cValues;
+    private final double[] reValues;
+    private final double[] imValues;
+    private final SparseComplexLu sparse;
     private final Map<String, double[]> directions = new HashMap<>();
+    /** Solutions by input and frequency (bits of hz): real parts then imaginary parts. */
+    private final Map<String, Map<Long, double[]>> kept = new HashMap<>();
+    private int keptDoubles;
+    private int solves;
 
     /** Linearise the circuit of {@code operatingPoint} at that point. */
     public AcAnalysis(OperatingPoint operatingPoint) {
-        this(operatingPoint, new DenseComplexLu());
+        this(operatingPoint, null, operatingPoint.system().size() >= SPARSE_FROM_UNKNOWNS);
     }
 
-    /** As {@link #AcAnalysis(OperatingPoint)}, with a given complex solver. */
+    /** As {@link #AcAnalysis(OperatingPoint)}, with a given complex solver on dense matrices. */
     public AcAnalysis(OperatingPoint operatingPoint, ComplexLinearSolver solver) {
+        this(operatingPoint, solver, false);
+    }
+
+    private AcAnalysis(OperatingPoint operatingPoint, ComplexLinearSolver solver, boolean useSparse) {
         this.operatingPoint = operatingPoint;
         this.system = operatingPoint.system();
         this.n = system.size();
-        this.g = new double[n][n];
-        this.c = new double[n][n];
-        this.workRe = new double[n][n];
-        this.workIm = new double[n][n];
         this.xRe = new double[n];
         this.xIm = new double[n];
-        this.lu = solver;
         double[] f = new double[n];
         double[] q = new double[n];
-        system.evaluate(operatingPoint.solution(), 0, Mode.DYNAMIC, 1, 0, f, g, q, c);
+        if (useSparse) {
+            this.pattern = system.pattern();
+            int entries = pattern.entries();
+            this.gValues = new double[entries];
+            this.cValues = new double[entries];
+            this.reValues = new double[entries];
+            this.imValues = new double[entries];
+            this.sparse = new SparseComplexLu();
+            system.evaluateSparse(operatingPoint.solution(), 0, f, gValues, q, cValues);
+            this.g = null;
+            this.c = null;
+            this.workRe = null;
+            this.workIm = null;
+            this.lu = null;
+        } else {
+            this.pattern = null;
+            this.gValues = null;
+            this.cValues = null;
+            this.reValues = null;
+            this.imValues = null;
+            this.sparse = null;
+            this.g = new double[n][n];
+            this.c = new double[n][n];
+            this.workRe = new double[n][n];
+            this.workIm = new double[n][n];
+            this.lu = solver != null ? solver : new DenseComplexLu();
+            system.evaluate(operatingPoint.solution(), 0, Mode.DYNAMIC, 1, 0, f, g, q, c);
+        }
+    }
+
+    /** An analysis that factors sparse whatever the size (tests compare the solvers). */
+    static AcAnalysis sparse(OperatingPoint operatingPoint) {
+        return new AcAnalysis(operatingPoint, null, true);
+    }
+
+    /** Whether this analysis factors sparse. */
+    boolean usesSparse() {
+        return sparse != null;
+    }
+
+    /** Factorisations made so far (solutions reused for a frequency asked for again are not counted). */
+    int solves() {
+        return solves;
+    }
+
+    /** Factorisations of the sparse solver that searched for pivots; 0 on the dense path. */
+    int pivotSearches() {
+        return sparse != null ? sparse.fullFactorisations() : 0;
     }
 
     /** Solve the operating point of {@code circuit} with {@link DcSolver} and linearise there. */
@@ -136,11 +208,11 @@ public final class AcAnalysis {
             throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
                     "the frequency must be finite and not negative, got " + hz + " Hz");
         }
-        double[] b = direction(inputSource);
+        String input = inputName(inputSource);
         int p = system.nodeIndex(outputPlus);
         int m = system.nodeIndex(outputMinus);
-        solveAt(hz, b);
-        return new AcTransfer(hz, value(xRe, p) - value(xRe, m), value(xIm, p) - value(xIm, m));
+        double[] x = solution(input, hz);
+        return new AcTransfer(hz, value(x, p, 0) - value(x, m, 0), value(x, p, n) - value(x, m, n));
     }
 
     /**
@@ -244,29 +316,65 @@ public final class AcAnalysis {
         return b;
     }
 
+    /**
+     * The solution for a unit of {@code input} at {@code hz}, real parts at [0, n) and imaginary
+     * parts at [n, 2n): kept for reuse while {@link #KEPT_SOLUTION_DOUBLES} allows.
+     */
+    private double[] solution(String input, double hz) {
+        Map<Long, double[]> byHz = kept.computeIfAbsent(input, k -> new HashMap<>());
+        Long key = Double.doubleToLongBits(hz);
+        double[] x = byHz.get(key);
+        if (x != null) {
+            return x;
+        }
+        solveAt(hz, direction(input));
+        x = new double[2 * n];
+        System.arraycopy(xRe, 0, x, 0, n);
+        System.arraycopy(xIm, 0, x, n, n);
+        if (keptDoubles + 2 * n <= KEPT_SOLUTION_DOUBLES) {
+            byHz.put(key, x);
+            keptDoubles += 2 * n;
+        }
+        return x;
+    }
+
     private void solveAt(double hz, double[] b) {
         double omega = 2 * Math.PI * hz;
-        for (int i = 0; i < n; i++) {
-            double[] gi = g[i];
-            double[] ci = c[i];
-            double[] re = workRe[i];
-            double[] im = workIm[i];
-            for (int j = 0; j < n; j++) {
-                re[j] = gi[j];
-                im[j] = omega * ci[j];
-            }
-        }
+        solves++;
         try {
-            lu.factor(workRe, workIm, n);
+            if (sparse != null) {
+                int entries = pattern.entries();
+                for (int k = 0; k < entries; k++) {
+                    reValues[k] = gValues[k];
+                    imValues[k] = omega * cValues[k];
+                }
+                sparse.factor(pattern, reValues, imValues);
+            } else {
+                for (int i = 0; i < n; i++) {
+                    double[] gi = g[i];
+                    double[] ci = c[i];
+                    double[] re = workRe[i];
+                    double[] im = workIm[i];
+                    for (int j = 0; j < n; j++) {
+                        re[j] = gi[j];
+                        im[j] = omega * ci[j];
+                    }
+                }
+                lu.factor(workRe, workIm, n);
+            }
         } catch (AnalysisException e) {
             throw new AnalysisException(e.kind(), "at " + hz + " Hz: " + e.getMessage(), e.nodes());
         }
         System.arraycopy(b, 0, xRe, 0, n);
         java.util.Arrays.fill(xIm, 0);
-        lu.solve(xRe, xIm);
+        if (sparse != null) {
+            sparse.solve(xRe, xIm);
+        } else {
+            lu.solve(xRe, xIm);
+        }
     }
 
-    private static double value(double[] x, int i) {
-        return i < 0 ? 0 : x[i];
+    private static double value(double[] x, int i, int offset) {
+        return i < 0 ? 0 : x[offset + i];
     }
 }

@@ -324,6 +324,30 @@ public final class MnaSystem {
             return columns.length;
         }
 
+        private volatile int[] fillOrder;
+
+        /**
+         * A fill-reducing column order of this pattern (minimum degree on A + Aᵀ, as
+         * {@link SparseLu} makes it), made once and shared by every solver factoring a matrix of
+         * this pattern. The caller must not change the array.
+         */
+        int[] fillOrder() {
+            int[] o = fillOrder;
+            if (o == null) {
+                int words = (size + 63) >>> 6;
+                long[] bits = new long[size * words];
+                for (int i = 0; i < size; i++) {
+                    for (int k = rowStart[i]; k < rowStart[i + 1]; k++) {
+                        int j = columns[k];
+                        bits[i * words + (j >>> 6)] |= 1L << (j & 63);
+                    }
+                }
+                o = SparseLu.minimumDegree(bits, size, words);
+                fillOrder = o;
+            }
+            return o;
+        }
+
         /** Index of entry (row, col) in the value arrays. */
         int slot(int row, int col) {
             int lo = rowStart[row];
