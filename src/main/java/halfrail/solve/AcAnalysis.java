@@ -1,5 +1,6 @@
 package halfrail.solve;
 
+import halfrail.circuit.Capacitor;
 import halfrail.circuit.Circuit;
 import halfrail.circuit.CurrentSource;
 import halfrail.circuit.Element;
@@ -216,6 +217,83 @@ public final class AcAnalysis {
     }
 
     /**
+     * The impedance at {@code hz} between the terminals of capacitor {@code capacitorName} with
+     * the capacitor taken out of the linearised circuit (its capacitance and leakage removed, the
+     * circuit kept at this operating point), every source held: V(plus) − V(minus) per ampere
+     * driven into plus and out of minus. One factorisation on this analysis's pattern; nothing
+     * is assembled or ordered afresh.
+     *
+     * @throws AnalysisException BAD_REQUEST for a bad frequency or a name that is not a
+     *                           capacitor; SINGULAR when the circuit without it is singular at hz
+     */
+    public AcTransfer impedanceWithout(String capacitorName, double hz) {
+        if (!Double.isFinite(hz) || hz < 0) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
+                    "the frequency must be finite and not negative, got " + hz + " Hz");
+        }
+        Element e = system.circuit().element(capacitorName).orElse(null);
+        if (!(e instanceof Capacitor cap)) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no capacitor named " + capacitorName);
+        }
+        int a = system.nodeIndex(cap.plus());
+        int b = system.nodeIndex(cap.minus());
+        double omega = 2 * Math.PI * hz;
+        // The stamp MnaSystem made for it: the leakage (when positive) as a conductance, and the capacitance.
+        double leak = cap.leakageSiemens() > 0 ? cap.leakageSiemens() : 0;
+        double susceptance = omega * cap.farads();
+        solves++;
+        try {
+            if (sparse != null) {
+                fill(omega);
+                remove(a, a, leak, susceptance);
+                remove(b, b, leak, susceptance);
+                remove(a, b, -leak, -susceptance);
+                remove(b, a, -leak, -susceptance);
+                sparse.factor(pattern, reValues, imValues);
+            } else {
+                fill(omega);
+                remove(a, a, leak, susceptance);
+                remove(b, b, leak, susceptance);
+                remove(a, b, -leak, -susceptance);
+                remove(b, a, -leak, -susceptance);
+                lu.factor(workRe, workIm, n);
+            }
+        } catch (AnalysisException ex) {
+            throw new AnalysisException(ex.kind(), "at " + hz + " Hz without " + capacitorName + ": "
+                    + ex.getMessage(), ex.nodes());
+        }
+        java.util.Arrays.fill(xRe, 0);
+        java.util.Arrays.fill(xIm, 0);
+        if (a >= 0) {
+            xRe[a] = 1;
+        }
+        if (b >= 0) {
+            xRe[b] = -1;
+        }
+        if (sparse != null) {
+            sparse.solve(xRe, xIm);
+        } else {
+            lu.solve(xRe, xIm);
+        }
+        return new AcTransfer(hz, value(xRe, a, 0) - value(xRe, b, 0), value(xIm, a, 0) - value(xIm, b, 0));
+    }
+
+    /** Subtract a conductance and a susceptance at (row, col) of the assembled G + jωC (skipped for ground). */
+    private void remove(int row, int col, double conductance, double susceptance) {
+        if (row < 0 || col < 0) {
+            return;
+        }
+        if (sparse != null) {
+            int k = pattern.slot(row, col);
+            reValues[k] -= conductance;
+            imValues[k] -= susceptance;
+        } else {
+            workRe[row][col] -= conductance;
+            workIm[row][col] -= susceptance;
+        }
+    }
+
+    /**
      * The transfer from {@code inputSource} to {@code outputNode} at {@code points} frequencies
      * spaced evenly in log f from {@code fStartHz} to {@code fStopHz}, both included.
      *
@@ -266,6 +344,28 @@ public final class AcAnalysis {
         system.nodeIndex(outputMinus);
         return new PassbandFinder(hz -> response(input, outputPlus, outputMinus, hz).magnitude())
                 .find(fStartHz, fStopHz);
+    }
+
+    /**
+     * The peak of |H| from {@code inputSource} to V({@code outputPlus}) − V({@code outputMinus})
+     * over [fStartHz, fStopHz]: {@link #passband(String, String, String, double, double)}'s
+     * {@link AcPassband#peakMagnitude()}, found the same way, without the search for the corners.
+     *
+     * @throws AnalysisException as {@link #passband(String, String, double, double)}
+     */
+    public double peakMagnitude(String inputSource, String outputPlus, String outputMinus, double fStartHz,
+                                double fStopHz) {
+        checkRange(fStartHz, fStopHz);
+        String input = inputName(inputSource);
+        system.nodeIndex(outputPlus);
+        system.nodeIndex(outputMinus);
+        return new PassbandFinder(hz -> response(input, outputPlus, outputMinus, hz).magnitude())
+                .findPeak(fStartHz, fStopHz).peakMagnitude();
+    }
+
+    /** As {@link #peakMagnitude(String, String, String, double, double)} for the voltage of {@code outputNode}. */
+    public double peakMagnitude(String inputSource, String outputNode, double fStartHz, double fStopHz) {
+        return peakMagnitude(inputSource, outputNode, Circuit.GROUND, fStartHz, fStopHz);
     }
 
     /**
@@ -342,24 +442,10 @@ public final class AcAnalysis {
         double omega = 2 * Math.PI * hz;
         solves++;
         try {
+            fill(omega);
             if (sparse != null) {
-                int entries = pattern.entries();
-                for (int k = 0; k < entries; k++) {
-                    reValues[k] = gValues[k];
-                    imValues[k] = omega * cValues[k];
-                }
                 sparse.factor(pattern, reValues, imValues);
             } else {
-                for (int i = 0; i < n; i++) {
-                    double[] gi = g[i];
-                    double[] ci = c[i];
-                    double[] re = workRe[i];
-                    double[] im = workIm[i];
-                    for (int j = 0; j < n; j++) {
-                        re[j] = gi[j];
-                        im[j] = omega * ci[j];
-                    }
-                }
                 lu.factor(workRe, workIm, n);
             }
         } catch (AnalysisException e) {
@@ -371,6 +457,28 @@ public final class AcAnalysis {
             sparse.solve(xRe, xIm);
         } else {
             lu.solve(xRe, xIm);
+        }
+    }
+
+    /** G + jωC into the work arrays of the path in use. */
+    private void fill(double omega) {
+        if (sparse != null) {
+            int entries = pattern.entries();
+            for (int k = 0; k < entries; k++) {
+                reValues[k] = gValues[k];
+                imValues[k] = omega * cValues[k];
+            }
+        } else {
+            for (int i = 0; i < n; i++) {
+                double[] gi = g[i];
+                double[] ci = c[i];
+                double[] re = workRe[i];
+                double[] im = workIm[i];
+                for (int j = 0; j < n; j++) {
+                    re[j] = gi[j];
+                    im[j] = omega * ci[j];
+                }
+            }
         }
     }
 

@@ -239,7 +239,7 @@ public final class DcSolver {
     }
 
     private void checkFloating() {
-        List<String> floating = FloatingNodes.find(system.circuit());
+        List<String> floating = system.floatingNodes();
         if (!floating.isEmpty()) {
             throw new AnalysisException(AnalysisException.Kind.FLOATING_NODE,
                     "no DC path to a defined voltage at node" + (floating.size() > 1 ? "s " : " ")

@@ -130,6 +130,9 @@ public final class MnaSystem {
         }
         this.opAmps = opAmpDevices(devices);
         this.opAmpByName = byName(opAmps);
+        // The pattern and the floating-node check depend only on the topology, which is the template's.
+        this.pattern = template.pattern();
+        this.floating = template.floating;
     }
 
     /**
@@ -141,19 +144,45 @@ public final class MnaSystem {
      * @throws AnalysisException BAD_REQUEST when the nodes or the elements' names, types or terminals differ
      */
     public MnaSystem withValuesOf(Circuit circuit) {
+        if (!hasTopologyOf(circuit)) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
+                    "the circuit's topology differs from this system's; assemble it with MnaSystem.of");
+        }
+        return new MnaSystem(this, circuit);
+    }
+
+    /**
+     * Whether {@code circuit} has this system's nodes and the same elements (type, name,
+     * terminals) in the same order, so that {@link #withValuesOf} accepts it.
+     */
+    public boolean hasTopologyOf(Circuit circuit) {
+        if (circuit == this.circuit) {
+            return true;
+        }
         List<Element> mine = this.circuit.elements();
         List<Element> theirs = circuit.elements();
         boolean same = circuit.nodes().equals(this.circuit.nodes()) && mine.size() == theirs.size();
         for (int i = 0; same && i < mine.size(); i++) {
             Element a = mine.get(i);
             Element b = theirs.get(i);
-            same = a.getClass() == b.getClass() && a.name().equals(b.name()) && a.terminals().equals(b.terminals());
+            same = a == b || a.getClass() == b.getClass() && a.name().equals(b.name())
+                    && a.terminals().equals(b.terminals());
         }
-        if (!same) {
-            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
-                    "the circuit's topology differs from this system's; assemble it with MnaSystem.of");
+        return same;
+    }
+
+    /**
+     * The nodes without a DC path ({@link FloatingNodes#find}), found once per topology: the
+     * answer depends only on the elements' types and terminals, so systems made by
+     * {@link #withValuesOf} share it.
+     */
+    List<String> floatingNodes() {
+        List<String> f = floating;
+        if (f == null) {
+            f = List.copyOf(FloatingNodes.find(circuit));
+            floating = f;
         }
-        return new MnaSystem(this, circuit);
+        return f;
     }
 
     /** Assemble the equations of {@code circuit}. */
@@ -369,11 +398,37 @@ public final class MnaSystem {
 
     private volatile Pattern pattern;
 
+    /** Positions (row·size + column) recorded while the pattern is made, repeats allowed. */
+    static final class Positions {
+        private long[] keys = new long[64];
+        private int count;
+
+        void add(long key) {
+            if (count == keys.length) {
+                keys = java.util.Arrays.copyOf(keys, 2 * count);
+            }
+            keys[count++] = key;
+        }
+
+        long[] sortedDistinct() {
+            long[] k = java.util.Arrays.copyOf(keys, count);
+            java.util.Arrays.sort(k);
+            int m = 0;
+            for (int i = 0; i < k.length; i++) {
+                if (m == 0 || k[i] != k[m - 1]) {
+                    k[m++] = k[i];
+                }
+            }
+            return java.util.Arrays.copyOf(k, m);
+        }
+    }
+    private volatile List<String> floating;
+
     /** The sparsity pattern of G and C (made once, on first use). */
     Pattern pattern() {
         Pattern p = pattern;
         if (p == null) {
-            java.util.Set<Long> seen = new java.util.HashSet<>();
+            Positions seen = new Positions();
             double[] x = new double[size];
             double[] f = new double[size];
             double[] q = new double[size];
@@ -388,7 +443,7 @@ public final class MnaSystem {
             for (int i = 0; i < size; i++) {
                 seen.add((long) i * size + i); // gmin on node rows; a diagonal slot everywhere
             }
-            long[] keys = seen.stream().mapToLong(Long::longValue).sorted().toArray();
+            long[] keys = seen.sortedDistinct();
             int[] rowStart = new int[size + 1];
             int[] columns = new int[keys.length];
             for (int k = 0; k < keys.length; k++) {
@@ -571,7 +626,7 @@ public final class MnaSystem {
         final double[] gs;
         final double[] cs;
         /** When not null, the stamp only records the positions it would write (row·size + column). */
-        final java.util.Set<Long> record;
+        final Positions record;
         final int size;
 
         Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale) {
@@ -579,7 +634,7 @@ public final class MnaSystem {
         }
 
         Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale,
-              Pattern pattern, double[] gs, double[] cs, java.util.Set<Long> record, int size) {
+              Pattern pattern, double[] gs, double[] cs, Positions record, int size) {
             this.limit = limit;
             this.gainScale = gainScale;
             this.x = x;

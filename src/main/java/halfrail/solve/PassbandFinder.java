@@ -55,7 +55,16 @@ final class PassbandFinder {
         this.maxCornerEvaluations = maxCornerEvaluations;
     }
 
+    /** The peak of |H| over the range (grid and Brent refinement as {@link #find}), without the corners. */
+    AcPassband findPeak(double fStartHz, double fStopHz) {
+        return search(fStartHz, fStopHz, false);
+    }
+
     AcPassband find(double fStartHz, double fStopHz) {
+        return search(fStartHz, fStopHz, true);
+    }
+
+    private AcPassband search(double fStartHz, double fStopHz, boolean corners) {
         double u0 = Math.log10(fStartHz);
         double u1 = Math.log10(fStopHz);
         int m = (int) Math.min(AcAnalysis.MAX_GRID_POINTS,
@@ -79,6 +88,9 @@ final class PassbandFinder {
         if (refined.getValue() > peak) {
             uPeak = refined.getPoint();
             peak = refined.getValue();
+        }
+        if (!corners) {
+            return new AcPassband(Math.pow(10, uPeak), peak, OptionalDouble.empty(), OptionalDouble.empty());
         }
         double ref = peak;
         UnivariateFunction below = x -> at(x) / ref - CORNER_RATIO;
