@@ -56,8 +56,8 @@ public final class MnaSystem {
     private final int size;
     private final Device[] devices;
     private final OpAmpDevice[] opAmps;
-    /** Op-amps by element name, for {@link #saturated} (a scan over the devices made that quadratic in the stage count). */
-    private final Map<String, OpAmpDevice> opAmpByName;
+    /** Index into {@link #opAmps} by element name, for {@link #saturated} (a scan over the devices made that quadratic in the stage count); shared by variants. */
+    private final Map<String, Integer> opAmpByName;
 
     private MnaSystem(Circuit circuit) {
         this.circuit = circuit;
@@ -96,10 +96,10 @@ public final class MnaSystem {
         this.opAmpByName = byName(opAmps);
     }
 
-    private static Map<String, OpAmpDevice> byName(OpAmpDevice[] opAmps) {
-        Map<String, OpAmpDevice> byName = new HashMap<>();
-        for (OpAmpDevice o : opAmps) {
-            byName.put(o.part.name(), o);
+    private static Map<String, Integer> byName(OpAmpDevice[] opAmps) {
+        Map<String, Integer> byName = new HashMap<>();
+        for (int j = 0; j < opAmps.length; j++) {
+            byName.put(opAmps[j].part.name(), j);
         }
         return Collections.unmodifiableMap(byName);
     }
@@ -129,7 +129,7 @@ public final class MnaSystem {
             devices[i] = device(list.get(i));
         }
         this.opAmps = opAmpDevices(devices);
-        this.opAmpByName = byName(opAmps);
+        this.opAmpByName = template.opAmpByName; // same elements in the same order
         // The pattern and the floating-node check depend only on the topology, which is the template's.
         this.pattern = template.pattern();
         this.floating = template.floating;
@@ -156,19 +156,7 @@ public final class MnaSystem {
      * terminals) in the same order, so that {@link #withValuesOf} accepts it.
      */
     public boolean hasTopologyOf(Circuit circuit) {
-        if (circuit == this.circuit) {
-            return true;
-        }
-        List<Element> mine = this.circuit.elements();
-        List<Element> theirs = circuit.elements();
-        boolean same = circuit.nodes().equals(this.circuit.nodes()) && mine.size() == theirs.size();
-        for (int i = 0; same && i < mine.size(); i++) {
-            Element a = mine.get(i);
-            Element b = theirs.get(i);
-            same = a == b || a.getClass() == b.getClass() && a.name().equals(b.name())
-                    && a.terminals().equals(b.terminals());
-        }
-        return same;
+        return circuit.sameTopologyAs(this.circuit);
     }
 
     /**
@@ -507,11 +495,11 @@ public final class MnaSystem {
      * that is whether the part has left its linear region.
      */
     public boolean saturated(double[] x, String name) {
-        OpAmpDevice o = opAmpByName.get(name);
-        if (o == null) {
+        Integer j = opAmpByName.get(name);
+        if (j == null) {
             throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
         }
-        return o.saturated(x);
+        return opAmps[j].saturated(x);
     }
 
     /** Number of op-amps, in circuit order (for the DC solver's limiter handling). */
