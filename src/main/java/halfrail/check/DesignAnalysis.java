@@ -117,6 +117,8 @@ public final class DesignAnalysis {
         private final double sourcePeak;
         /** The nominal circuit's equations: variants with its topology share their unknowns and pattern. */
         private MnaSystem nominalSystem;
+        /** The solver of the last variant solved, whose work the next one takes over. */
+        private DcSolver variantSolver;
 
         Workup(Design design, DesignCircuit nominal, boolean withPowerOn) {
             this.design = design;
@@ -387,9 +389,15 @@ public final class DesignAnalysis {
         }
 
         private OperatingPoint solve(Circuit c, double[] guess) {
-            MnaSystem system = nominalSystem != null && nominalSystem.hasTopologyOf(c)
-                    ? nominalSystem.withValuesOf(c) : MnaSystem.of(c);
-            DcSolver s = new DcSolver(system);
+            DcSolver s;
+            if (nominalSystem != null && nominalSystem.hasTopologyOf(c)) {
+                // A variant of the nominal circuit: one solver's arrays and sparse factors serve them all.
+                MnaSystem system = nominalSystem.withValuesOf(c);
+                s = variantSolver == null ? new DcSolver(system) : variantSolver.reusedFor(system);
+                variantSolver = s;
+            } else {
+                s = new DcSolver(MnaSystem.of(c));
+            }
             try {
                 return s.solveFrom(guess);
             } catch (AnalysisException e) {
