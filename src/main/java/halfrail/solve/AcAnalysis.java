@@ -86,6 +86,10 @@ public final class AcAnalysis {
     /** Solutions by input and frequency (bits of hz): real parts then imaginary parts. */
     private final Map<String, Map<Long, double[]>> kept = new HashMap<>();
     private int keptDoubles;
+    /** No frequency is factored: the bits of a NaN that no frequency accepted here has. */
+    private static final long NONE_FACTORED = 0x7ff8dead0000beefL;
+    /** Bits of the frequency whose factors the solver holds, or {@link #NONE_FACTORED}. */
+    private long factoredHzBits = NONE_FACTORED;
     private int solves;
 
     /** Linearise the circuit of {@code operatingPoint} at that point. */
@@ -146,7 +150,7 @@ public final class AcAnalysis {
         return sparse != null;
     }
 
-    /** Factorisations made so far (solutions reused for a frequency asked for again are not counted). */
+    /** Factorisations made so far (a frequency asked for again, or for another input right after, is not factored again). */
     int solves() {
         return solves;
     }
@@ -241,6 +245,7 @@ public final class AcAnalysis {
         // The stamp MnaSystem made for it: the leakage (when positive) as a conductance, and the capacitance.
         double leak = cap.leakageSiemens() > 0 ? cap.leakageSiemens() : 0;
         double susceptance = omega * cap.farads();
+        factoredHzBits = NONE_FACTORED; // the factors below are not those of the circuit
         solves++;
         try {
             if (sparse != null) {
@@ -440,16 +445,21 @@ public final class AcAnalysis {
 
     private void solveAt(double hz, double[] b) {
         double omega = 2 * Math.PI * hz;
-        solves++;
-        try {
-            fill(omega);
-            if (sparse != null) {
-                sparse.factor(pattern, reValues, imValues);
-            } else {
-                lu.factor(workRe, workIm, n);
+        if (Double.doubleToLongBits(hz) != factoredHzBits) {
+            // Another input at the frequency last factored needs only another solve.
+            factoredHzBits = NONE_FACTORED;
+            solves++;
+            try {
+                fill(omega);
+                if (sparse != null) {
+                    sparse.factor(pattern, reValues, imValues);
+                } else {
+                    lu.factor(workRe, workIm, n);
+                }
+            } catch (AnalysisException e) {
+                throw new AnalysisException(e.kind(), "at " + hz + " Hz: " + e.getMessage(), e.nodes());
             }
-        } catch (AnalysisException e) {
-            throw new AnalysisException(e.kind(), "at " + hz + " Hz: " + e.getMessage(), e.nodes());
+            factoredHzBits = Double.doubleToLongBits(hz);
         }
         System.arraycopy(b, 0, xRe, 0, n);
         java.util.Arrays.fill(xIm, 0);

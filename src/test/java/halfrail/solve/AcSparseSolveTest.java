@@ -89,7 +89,13 @@ class AcSparseSolveTest {
         AcTransfer fresh = new AcAnalysis(op).response("VSIG", "s3out", 1e3);
         assertEquals(fresh.re(), again.re());
         assertEquals(fresh.im(), again.im());
-        ac.response("VSUP", "s3out", 1e3);
-        assertEquals(solves + 1, ac.solves(), "another input is another right-hand side");
+        // Another input at the frequency last factored is another right-hand side on the same factors.
+        AcTransfer supply = ac.response("VSUP", "s3out", 1e3);
+        assertEquals(solves, ac.solves());
+        AcTransfer freshSupply = new AcAnalysis(op).response("VSUP", "s3out", 1e3);
+        assertEquals(freshSupply.re(), supply.re());
+        assertEquals(freshSupply.im(), supply.im());
+        ac.response("VSUP", "s3out", 2e3);
+        assertEquals(solves + 1, ac.solves());
     }
 }
