@@ -54,7 +54,9 @@ public final class AcAnalysis {
      * Systems of at least this many unknowns are factored with {@link SparseComplexLu} on the
      * circuit's pattern (its fill-reducing order made once per {@link MnaSystem} and shared,
      * the pivot order and factor patterns kept from one frequency to the next); smaller ones with
-     * {@link DenseComplexLu}, whose tight loops win there.
+     * {@link DenseComplexLu}. Measured on 200-point sweeps (thread CPU, 2026-12-02): sparse takes
+     * 0.35 against 0.41 ms at 12 unknowns (the preamp sample), 0.41 against 1.04 ms at 25
+     * (three stages) and 2.3 against 31 ms at 133 (sixteen stages); below 12 it was not measured.
      */
     static final int SPARSE_FROM_UNKNOWNS = 12;
     /**
