@@ -382,7 +382,7 @@ public final class AcAnalysis {
      * @throws AnalysisException as {@link #passband(String, String, double, double)}
      */
     public OptionalDouble lowerCornerHz(String inputSource, String outputNode, double fStartHz, double fStopHz) {
-        return passband(inputSource, outputNode, fStartHz, fStopHz).lowerCornerHz();
+        return corners(inputSource, outputNode, fStartHz, fStopHz, true, false).lowerCornerHz();
     }
 
     /**
@@ -392,7 +392,17 @@ public final class AcAnalysis {
      * @throws AnalysisException as {@link #passband(String, String, double, double)}
      */
     public OptionalDouble upperCornerHz(String inputSource, String outputNode, double fStartHz, double fStopHz) {
-        return passband(inputSource, outputNode, fStartHz, fStopHz).upperCornerHz();
+        return corners(inputSource, outputNode, fStartHz, fStopHz, false, true).upperCornerHz();
+    }
+
+    /** The passband search with only the corners asked for (the other's search skipped). */
+    private AcPassband corners(String inputSource, String outputNode, double fStartHz, double fStopHz, boolean lower,
+                               boolean upper) {
+        checkRange(fStartHz, fStopHz);
+        String input = inputName(inputSource);
+        system.nodeIndex(outputNode);
+        return new PassbandFinder(hz -> response(input, outputNode, Circuit.GROUND, hz).magnitude())
+                .find(fStartHz, fStopHz, lower, upper);
     }
 
     private static void checkRange(double fStartHz, double fStopHz) {

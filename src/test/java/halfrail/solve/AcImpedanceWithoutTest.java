@@ -10,7 +10,8 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 
 /**
  * The impedance a capacitor sees with itself taken out ({@link AcAnalysis#impedanceWithout}),
- * against closed forms of the networks, and the peak-only search against the full passband search.
+ * against closed forms of the networks, and the peak-only and one-corner searches against the
+ * full passband search.
  */
 class AcImpedanceWithoutTest {
     private static final double R = 10e3;
@@ -73,6 +74,16 @@ class AcImpedanceWithoutTest {
         assertEquals(ac.passband("VSIG", "s2out", 20, 20e3).peakMagnitude(), ac.peakMagnitude("VSIG", "s2out", 20, 20e3));
         assertEquals(ac.passband("VSIG", "s2p", "s1out", 20, 20e3).peakMagnitude(),
                 ac.peakMagnitude("VSIG", "s2p", "s1out", 20, 20e3));
+    }
+
+    @Test
+    void oneCornerSearchesFindThePassbandSearchesCorners() {
+        OperatingPoint op = DcSolver.operatingPoint(OpAmpChains.chain(2));
+        AcPassband band = new AcAnalysis(op).passband("VSIG", "load", 0.1, 1e6);
+        double lower = new AcAnalysis(op).lowerCornerHz("VSIG", "load", 0.1, 1e6).orElseThrow();
+        double upper = new AcAnalysis(op).upperCornerHz("VSIG", "load", 0.1, 1e6).orElseThrow();
+        assertEquals(band.lowerCornerHz().orElseThrow(), lower, 1e-12 * lower);
+        assertEquals(band.upperCornerHz().orElseThrow(), upper, 1e-12 * upper);
     }
 
     @Test
