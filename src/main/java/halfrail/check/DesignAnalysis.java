@@ -2,6 +2,7 @@ package halfrail.check;
 
 import halfrail.circuit.Capacitor;
 import halfrail.circuit.Circuit;
+import halfrail.circuit.Element;
 import halfrail.circuit.CurrentSource;
 import halfrail.circuit.OpAmp;
 import halfrail.circuit.OpAmpParams;
@@ -114,6 +115,10 @@ public final class DesignAnalysis {
         private final boolean withPowerOn;
         private final PartsLibrary parts = PartsLibrary.builtIn();
         private final double sourcePeak;
+        /** The nominal circuit's equations: variants with its topology share their unknowns and pattern. */
+        private MnaSystem nominalSystem;
+        /** The solver of the last variant solved, whose work the next one takes over. */
+        private DcSolver variantSolver;
 
         Workup(Design design, DesignCircuit nominal, boolean withPowerOn) {
             this.design = design;
@@ -126,6 +131,7 @@ public final class DesignAnalysis {
             Supply supply = design.supply();
             DcSolver solver = new DcSolver(MnaSystem.of(nominal.circuit()));
             OperatingPoint op = solver.solve();
+            nominalSystem = op.system();
             double[] guess = op.solution();
             OperatingPoint low = solve(DesignCircuits.build(design, supply.lowVolts(), LeakageLevel.TYPICAL), guess);
             OperatingPoint high = solve(DesignCircuits.build(design, supply.highVolts(), LeakageLevel.TYPICAL), guess);
@@ -135,10 +141,15 @@ public final class DesignAnalysis {
                     guess);
             OperatingPoint noBias = solve(withoutBiasCurrents(nominal.circuit()), guess);
             Map<String, OperatingPoint> oneLeaking = new LinkedHashMap<>();
-            for (Capacitor c : technologyCapacitors(noLeakCircuit.circuit())) {
+            List<Element> noLeakElements = noLeakCircuit.circuit().elements();
+            for (int i = 0; i < noLeakElements.size(); i++) {
+                if (!(noLeakElements.get(i) instanceof Capacitor c) || c.technology().isEmpty()) {
+                    continue;
+                }
                 double g = technology(c).leakageSiemens(c.farads(), c.ratedVolts(), LeakageLevel.LIMIT);
-                Circuit one = noLeakCircuit.circuit().replace(c.name(), e -> ((Capacitor) e).withLeakage(g));
-                oneLeaking.put(c.name(), solve(one, guess));
+                List<Element> changed = new ArrayList<>(noLeakElements);
+                changed.set(i, c.withLeakage(g));
+                oneLeaking.put(c.name(), solve(noLeakCircuit.circuit().withValues(changed), guess));
             }
 
             AcAnalysis ac = new AcAnalysis(op);
@@ -154,8 +165,8 @@ public final class DesignAnalysis {
                 OpAmpState stLow = low.opAmp(sn.opAmp()).orElseThrow();
                 OpAmpState stHigh = high.opAmp(sn.opAmp()).orElseThrow();
                 OpAmpParams p = ((OpAmp) nominal.circuit().element(sn.opAmp()).orElseThrow()).params();
-                double outGain = ac.passband(sig, sn.out(), bandLow, bandHigh).peakMagnitude();
-                double inGain = ac.passband(sig, sn.inPlus(), bandLow, bandHigh).peakMagnitude();
+                double outGain = ac.peakMagnitude(sig, sn.out(), bandLow, bandHigh);
+                double inGain = ac.peakMagnitude(sig, sn.inPlus(), bandLow, bandHigh);
                 double signalPeak = outGain * sourcePeak;
                 double inputPeak = inGain * sourcePeak;
                 double centre = Math.sqrt(bandLow * bandHigh);
@@ -207,11 +218,11 @@ public final class DesignAnalysis {
                 double dc = op.voltage(c.plus()) - op.voltage(c.minus());
                 double dcLow = low.voltage(c.plus()) - low.voltage(c.minus());
                 double dcHigh = high.voltage(c.plus()) - high.voltage(c.minus());
-                double sigPeak = ac.passband(sig, c.plus(), c.minus(), bandLow, bandHigh).peakMagnitude() * sourcePeak;
+                double sigPeak = ac.peakMagnitude(sig, c.plus(), c.minus(), bandLow, bandHigh) * sourcePeak;
                 double worst = Math.max(Math.abs(dc), Math.max(Math.abs(dcLow), Math.abs(dcHigh))) + sigPeak;
                 double override = design.thresholds().capacitorDeratingOverride();
                 double derated = override > 0 ? override * c.ratedVolts() : tech.deratedVolts(c.ratedVolts());
-                double seen = seenOhms(c, guess, Math.sqrt(bandLow * bandHigh));
+                double seen = seenOhms(ac, c, Math.sqrt(bandLow * bandHigh));
                 double corner = 1 / (2 * Math.PI * seen * c.farads());
                 double leak = tech.leakageAmps(c.farads(), c.ratedVolts(), Math.abs(dc), LeakageLevel.LIMIT);
                 capacitors.add(new CapacitorReport(c.name(), nominal.designPath(c.name()), tech.id(), c.farads(), dc,
@@ -260,13 +271,12 @@ public final class DesignAnalysis {
          * decoupling capacitors all but short. This is the resistance of the short-circuit
          * time-constant method for low-frequency corners (Sedra and Smith, Microelectronic
          * Circuits, low-frequency response of amplifiers — from memory); the DC resistance would
-         * count, say, the divider behind a decoupled reference that the band never sees.
+         * count, say, the divider behind a decoupled reference that the band never sees. The
+         * capacitor is taken out of the nominal linearisation ({@link AcAnalysis#impedanceWithout}):
+         * one more factorisation of the analysis already made, at the nominal operating point.
          */
-        private double seenOhms(Capacitor c, double[] guess, double hz) {
-            String probe = "IPROBE_" + c.name();
-            Circuit without = nominal.circuit().replace(c.name(), e -> new CurrentSource(probe, c.plus(), c.minus(), 0));
-            AcAnalysis probeAc = new AcAnalysis(solve(without, guess));
-            return probeAc.response(probe, c.plus(), c.minus(), hz).magnitude();
+        private double seenOhms(AcAnalysis ac, Capacitor c, double hz) {
+            return ac.impedanceWithout(c.name(), hz).magnitude();
         }
 
         private ChainReport chain(AcAnalysis ac) {
@@ -379,7 +389,15 @@ public final class DesignAnalysis {
         }
 
         private OperatingPoint solve(Circuit c, double[] guess) {
-            DcSolver s = new DcSolver(MnaSystem.of(c));
+            DcSolver s;
+            if (nominalSystem != null && nominalSystem.hasTopologyOf(c)) {
+                // A variant of the nominal circuit: one solver's arrays and sparse factors serve them all.
+                MnaSystem system = nominalSystem.withValuesOf(c);
+                s = variantSolver == null ? new DcSolver(system) : variantSolver.reusedFor(system);
+                variantSolver = s;
+            } else {
+                s = new DcSolver(MnaSystem.of(c));
+            }
             try {
                 return s.solveFrom(guess);
             } catch (AnalysisException e) {
@@ -391,12 +409,14 @@ public final class DesignAnalysis {
         }
 
         private Circuit withoutBiasCurrents(Circuit c) {
-            Circuit result = c;
-            for (OpAmp o : c.elements(OpAmp.class)) {
-                OpAmpParams p = o.params();
-                result = result.replace(o.name(), e -> ((OpAmp) e).withParams(p.withInputErrors(p.offsetVolts(), 0, 0)));
+            List<Element> elements = new ArrayList<>(c.elements());
+            for (int i = 0; i < elements.size(); i++) {
+                if (elements.get(i) instanceof OpAmp o) {
+                    OpAmpParams p = o.params();
+                    elements.set(i, o.withParams(p.withInputErrors(p.offsetVolts(), 0, 0)));
+                }
             }
-            return result;
+            return c.withValues(elements);
         }
 
         private List<Capacitor> technologyCapacitors(Circuit c) {

@@ -101,6 +101,7 @@ public final class MonteCarlo {
                 double[] qb = new double[m];
                 double[] hb = new double[m];
                 boolean[] sb = new boolean[m];
+                BuildEvaluator.Work work = ev.work();
                 int finished = 0;
                 for (int i = from; i < to; i++) {
                     if (cancel.isCancelled()) {
@@ -108,7 +109,7 @@ public final class MonteCarlo {
                     }
                     sampler.sample(options.seed(), i, values);
                     try {
-                        passes[i] = ev.evaluate(values, qb, hb, sb);
+                        passes[i] = ev.evaluate(values, work, qb, hb, sb);
                         converged[i] = true;
                         margin[i] = ev.worstMarginDb(hb, sb);
                         for (int k = 0; k < m; k++) {

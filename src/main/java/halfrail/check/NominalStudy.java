@@ -51,7 +51,7 @@ final class NominalStudy {
         double hi = design.source().bandHighHz();
         signalPeakVolts = new double[opAmps.size()];
         for (int k = 0; k < opAmps.size(); k++) {
-            signalPeakVolts[k] = ac.passband(circuit.signalSource(), opAmps.get(k).out(), lo, hi).peakMagnitude()
+            signalPeakVolts[k] = ac.peakMagnitude(circuit.signalSource(), opAmps.get(k).out(), lo, hi)
                     * sourcePeakVolts;
         }
     }

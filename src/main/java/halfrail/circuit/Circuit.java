@@ -27,17 +27,59 @@ public final class Circuit {
     private final String title;
     private final List<String> nodes;
     private final List<Element> elements;
-    private final Map<String, Element> byName;
+    /** Elements by name, made on first use (a study's builds are made by the thousand and rarely looked up by name). */
+    private volatile Map<String, Element> byName;
+    /**
+     * Shared by every circuit made from another by {@link #withValues} (directly or in turn): they
+     * have the same nodes and the same elements' types, names and terminals in the same order.
+     */
+    private final Object topology;
 
     private Circuit(String title, List<String> nodes, List<Element> elements) {
+        this(title, nodes, elements, null);
+    }
+
+    private Circuit(String title, List<String> nodes, List<Element> elements, Object topology) {
         this.title = title;
         this.nodes = List.copyOf(nodes);
         this.elements = List.copyOf(elements);
-        Map<String, Element> map = new HashMap<>();
-        for (Element e : elements) {
-            map.put(e.name(), e);
+        this.topology = topology != null ? topology : new Object();
+    }
+
+    private Map<String, Element> byName() {
+        Map<String, Element> m = byName;
+        if (m == null) {
+            Map<String, Element> map = new HashMap<>();
+            for (Element e : elements) {
+                map.put(e.name(), e);
+            }
+            m = Collections.unmodifiableMap(map);
+            byName = m;
         }
-        this.byName = Collections.unmodifiableMap(map);
+        return m;
+    }
+
+    /**
+     * Whether this circuit and {@code other} have the same nodes and the same elements' types,
+     * names and terminals in the same order, as {@link #withValues} demands. Answered at once for
+     * circuits made from one another by {@link #withValues}; otherwise compared element by element.
+     */
+    public boolean sameTopologyAs(Circuit other) {
+        if (other == this || other.topology == topology) {
+            return true;
+        }
+        if (!nodes.equals(other.nodes) || elements.size() != other.elements.size()) {
+            return false;
+        }
+        for (int i = 0; i < elements.size(); i++) {
+            Element a = elements.get(i);
+            Element b = other.elements.get(i);
+            if (a != b && (a.getClass() != b.getClass() || !a.name().equals(b.name())
+                    || !a.terminals().equals(b.terminals()))) {
+                return false;
+            }
+        }
+        return true;
     }
 
     public static Builder builder() {
@@ -71,7 +113,7 @@ public final class Circuit {
     }
 
     public Optional<Element> element(String name) {
-        return Optional.ofNullable(byName.get(name));
+        return Optional.ofNullable(byName().get(name));
     }
 
     /** Whether {@code node} is ground (or its alias) or a declared node. */
@@ -81,7 +123,7 @@ public final class Circuit {
 
     /** A copy with one element replaced by the result of {@code change}; the name must stay. */
     public Circuit replace(String elementName, UnaryOperator<Element> change) {
-        Element old = byName.get(elementName);
+        Element old = byName().get(elementName);
         if (old == null) {
             throw new CircuitException(CircuitException.Kind.UNKNOWN_NODE, elementName, "name",
                     "no element named " + elementName);
@@ -111,13 +153,14 @@ public final class Circuit {
         for (int i = 0; i < elements.size(); i++) {
             Element old = elements.get(i);
             Element e = replacements.get(i);
-            if (e.getClass() != old.getClass() || !e.name().equals(old.name()) || !e.terminals().equals(old.terminals())) {
+            if (e != old && (e.getClass() != old.getClass() || !e.name().equals(old.name())
+                    || !e.terminals().equals(old.terminals()))) {
                 throw new CircuitException(CircuitException.Kind.BAD_CONNECTION, e.name(), "terminals",
                         "element " + i + " (" + e.name() + ") does not match " + old.name()
                                 + " in type, name or terminals");
             }
         }
-        return new Circuit(title, nodes, replacements);
+        return new Circuit(title, nodes, replacements, topology);
     }
 
     /** A builder that starts from this circuit's contents. */

@@ -143,6 +143,8 @@ public final class DcSolver {
     /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
     private double gainScale = 1;
     private boolean linearStartSingular;
+    /** The array {@link #solveVectorFrom} answers in (made on first use, handed on by {@link #reusedFor}). */
+    private double[] vector;
 
     public DcSolver(MnaSystem system) {
         this(system, LinearSolvers.forSize(system.size()));
@@ -166,6 +168,58 @@ public final class DcSolver {
         this.pattern = sparse != null ? system.pattern() : null;
     }
 
+    /**
+     * A solver for {@code variant}, a system of this solver's topology (made with
+     * {@link MnaSystem#withValuesOf} from this solver's system or from one made that way), that
+     * takes over this solver's work arrays and sparse factorisation — the pivot order and factor
+     * patterns it keeps — so that solving many builds of one circuit allocates nothing per build.
+     * This solver must not be used afterwards; the new one serves one thread.
+     *
+     * @throws IllegalArgumentException when the variant's topology is not this solver's
+     */
+    public DcSolver reusedFor(MnaSystem variant) {
+        if (variant.size() != n || (pattern != null && variant.pattern() != pattern)
+                || !system.hasTopologyOf(variant.circuit())) {
+            throw new IllegalArgumentException("the variant's topology differs from this solver's system");
+        }
+        return new DcSolver(variant, this);
+    }
+
+    /** The variant's solver on {@code from}'s work (see {@link #reusedFor}). */
+    private DcSolver(MnaSystem variant, DcSolver from) {
+        this.system = variant;
+        this.n = from.n;
+        this.nodeCount = from.nodeCount;
+        this.opAmpCount = from.opAmpCount;
+        this.branchCount = from.branchCount;
+        this.f = from.f;
+        this.g = from.g;
+        this.dx = from.dx;
+        this.rowMagnitude = from.rowMagnitude;
+        this.rowKind = from.rowKind;
+        this.lu = from.lu;
+        this.sparse = from.sparse;
+        this.pattern = from.pattern;
+        this.vector = from.vector;
+    }
+
+    /**
+     * As {@link #solveFrom}, returning only the solution (the stable one, as there) in an array of
+     * this solver's that the next solve overwrites: no {@link OperatingPoint}, no maps. For
+     * studies that read a few numbers from many builds.
+     *
+     * @throws AnalysisException as {@link #solveFrom}
+     */
+    public double[] solveVectorFrom(double[] guess) {
+        double[] x = vector != null ? vector : (vector = new double[n]);
+        OperatingPoint.Strategy strategy = converge(guess, x);
+        if (strategy == null) {
+            throw failure();
+        }
+        finish(x);
+        return x;
+    }
+
     /** Solve {@code circuit}'s operating point. */
     public static OperatingPoint operatingPoint(Circuit circuit) {
         return new DcSolver(MnaSystem.of(circuit)).solve();
@@ -186,34 +240,43 @@ public final class DcSolver {
      *                           when every strategy fails
      */
     public OperatingPoint solveFrom(double[] guess) {
+        double[] x = new double[n];
+        OperatingPoint.Strategy strategy = converge(guess, x);
+        if (strategy == null) {
+            throw failure();
+        }
+        return result(x, strategy);
+    }
+
+    /** The strategies of {@link #solveFrom} in turn, on x; the one that converged, or null. */
+    private OperatingPoint.Strategy converge(double[] guess, double[] x) {
         checkFloating();
         if (guess != null && guess.length != n) {
             throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
                     "a starting guess needs " + n + " unknowns, got " + guess.length);
         }
         iterations = 0;
-        double[] x = new double[n];
         if (guess != null) {
             System.arraycopy(guess, 0, x, 0, n);
         } else {
             linearStartOr(x);
         }
         if (newton(x, 1, 0)) {
-            return result(x, OperatingPoint.Strategy.NEWTON);
+            return OperatingPoint.Strategy.NEWTON;
         }
         if (limiterActiveSet(x)) {
-            return result(x, OperatingPoint.Strategy.LIMITER_ACTIVE_SET);
+            return OperatingPoint.Strategy.LIMITER_ACTIVE_SET;
         }
         if (gainStepping(x)) {
-            return result(x, OperatingPoint.Strategy.GAIN_STEPPING);
+            return OperatingPoint.Strategy.GAIN_STEPPING;
         }
         if (gminStepping(x)) {
-            return result(x, OperatingPoint.Strategy.GMIN_STEPPING);
+            return OperatingPoint.Strategy.GMIN_STEPPING;
         }
         if (sourceStepping(x)) {
-            return result(x, OperatingPoint.Strategy.SOURCE_STEPPING);
+            return OperatingPoint.Strategy.SOURCE_STEPPING;
         }
-        throw failure();
+        return null;
     }
 
     /**
@@ -239,7 +302,7 @@ public final class DcSolver {
     }
 
     private void checkFloating() {
-        List<String> floating = FloatingNodes.find(system.circuit());
+        List<String> floating = system.floatingNodes();
         if (!floating.isEmpty()) {
             throw new AnalysisException(AnalysisException.Kind.FLOATING_NODE,
                     "no DC path to a defined voltage at node" + (floating.size() > 1 ? "s " : " ")
@@ -768,20 +831,25 @@ public final class DcSolver {
         return i < nodeCount || i >= nodeCount + branchCount;
     }
 
-    private OperatingPoint result(double[] x, OperatingPoint.Strategy strategy) {
+    /** The stability check on a converged x, then the finiteness check. */
+    private void finish(double[] x) {
         jacobianSingular = false;
         preferStable(x);
-        Circuit c = system.circuit();
-        system.evaluate(x, 0, Mode.DC, 1, 0, f, null, null, null);
-        double residual = 0;
-        for (int i = 0; i < system.nodeCount(); i++) {
-            residual = Math.max(residual, Math.abs(f[i]));
-        }
         for (double v : x) {
             if (!Double.isFinite(v)) {
                 throw new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
                         "the operating point holds a non-finite value");
             }
+        }
+    }
+
+    private OperatingPoint result(double[] x, OperatingPoint.Strategy strategy) {
+        finish(x);
+        Circuit c = system.circuit();
+        system.evaluate(x, 0, Mode.DC, 1, 0, f, null, null, null);
+        double residual = 0;
+        for (int i = 0; i < system.nodeCount(); i++) {
+            residual = Math.max(residual, Math.abs(f[i]));
         }
         Map<String, Double> volts = new LinkedHashMap<>();
         for (String node : c.nodes()) {

@@ -1,17 +1,23 @@
 package halfrail.solve;
 
 /**
- * Dense complex LU decomposition with partial (row) pivoting, in place, on separate real and
- * imaginary arrays. The pivot of column k is the entry of largest modulus on or below the
- * diagonal; when its modulus is at most {@link #DEFAULT_TOO_SMALL} (or the threshold given to
- * the constructor) times the largest modulus in column k of the original matrix, the matrix is
- * singular. The column-relative threshold keeps a column of small conductances (a node tied in
- * by megohms) from being measured against the large entries of an op-amp row.
+ * Dense complex LU decomposition with row equilibration and partial (row) pivoting, in place, on
+ * separate real and imaginary arrays. Each row is first divided by its largest modulus, as in
+ * {@link DenseLu}: the rows of a circuit's matrix are in different units (siemens in a node's
+ * current balance, 1/s times a gain of 1e5 in an op-amp's state row), so a pivot is measured
+ * only against its own row. The pivot of column k is then the entry of largest modulus on or
+ * below the diagonal; when its modulus is at most {@link #DEFAULT_TOO_SMALL} (or the threshold
+ * given to the constructor), the matrix is singular.
+ *
+ * <p>An earlier version measured the pivot against the largest modulus of its column in the
+ * original matrix. That mixes the units: in a six-stage chain of gain-11 stages the last pivot,
+ * from a node row of conductances near 1e-4 S, was 6e-7 of its own row but 1e-14 of the op-amp
+ * row sharing its column, and a well-posed system was called singular.
  *
  * <p>Work arrays grow to the largest size seen and are reused; not thread-safe.
  */
 public final class DenseComplexLu implements ComplexLinearSolver {
-    /** Relative pivot threshold (against the column's largest original modulus) below which the matrix is singular. */
+    /** Pivot modulus, relative to the largest original modulus of the pivot's row, below which the matrix is singular. */
     public static final double DEFAULT_TOO_SMALL = 1e-14;
 
     private final double tooSmall;
@@ -19,7 +25,7 @@ public final class DenseComplexLu implements ComplexLinearSolver {
     private double[][] im;
     private int n;
     private int[] perm = new int[0];
-    private double[] columnScale = new double[0];
+    private double[] rowScale = new double[0];
     private double[] workRe = new double[0];
     private double[] workIm = new double[0];
 
@@ -27,7 +33,7 @@ public final class DenseComplexLu implements ComplexLinearSolver {
         this(DEFAULT_TOO_SMALL);
     }
 
-    /** @param tooSmall relative pivot threshold, positive and below 1 */
+    /** @param tooSmall pivot threshold relative to the pivot row's largest original modulus, positive and below 1 */
     public DenseComplexLu(double tooSmall) {
         if (!(tooSmall > 0 && tooSmall < 1)) {
             throw new IllegalArgumentException("the pivot threshold must lie between 0 and 1, got " + tooSmall);
@@ -42,22 +48,41 @@ public final class DenseComplexLu implements ComplexLinearSolver {
         this.n = size;
         if (perm.length < size) {
             perm = new int[size];
-            columnScale = new double[size];
+            rowScale = new double[size];
             workRe = new double[size];
             workIm = new double[size];
         }
-        java.util.Arrays.fill(columnScale, 0, size, 0);
         for (int i = 0; i < size; i++) {
             perm[i] = i;
             double[] rowRe = aRe[i];
             double[] rowIm = aIm[i];
+            double max2 = 0;
             for (int j = 0; j < size; j++) {
-                double m2 = rowRe[j] * rowRe[j] + rowIm[j] * rowIm[j];
-                if (!Double.isFinite(m2)) {
+                double a = rowRe[j];
+                double b = rowIm[j];
+                if (!(Math.abs(a) <= Double.MAX_VALUE) || !(Math.abs(b) <= Double.MAX_VALUE)) {
                     throw new AnalysisException(AnalysisException.Kind.SINGULAR,
                             "the system matrix holds a non-finite entry in row " + i + ", column " + j);
                 }
-                columnScale[j] = Math.max(columnScale[j], m2);
+                max2 = Math.max(max2, a * a + b * b);
+            }
+            double max = Math.sqrt(max2);
+            if (max2 > 1e300 || (max2 < 1e-300 && max2 > 0)) {
+                // Entries beyond 1e±150: the squared modulus over- or underflows.
+                max = 0;
+                for (int j = 0; j < size; j++) {
+                    max = Math.max(max, Math.hypot(rowRe[j], rowIm[j]));
+                }
+            }
+            if (max == 0) {
+                throw new AnalysisException(AnalysisException.Kind.SINGULAR,
+                        "the system matrix has an empty row " + i);
+            }
+            double inv = 1.0 / max;
+            rowScale[i] = inv;
+            for (int j = 0; j < size; j++) {
+                rowRe[j] *= inv;
+                rowIm[j] *= inv;
             }
         }
         double tooSmall2 = tooSmall * tooSmall;
@@ -71,7 +96,7 @@ public final class DenseComplexLu implements ComplexLinearSolver {
                     p = i;
                 }
             }
-            if (max == 0 || max <= tooSmall2 * columnScale[k]) {
+            if (!(max > tooSmall2)) {
                 throw new AnalysisException(AnalysisException.Kind.SINGULAR,
                         "the system matrix is singular at unknown " + k);
             }
@@ -121,8 +146,8 @@ public final class DenseComplexLu implements ComplexLinearSolver {
         double[] yr = workRe;
         double[] yi = workIm;
         for (int i = 0; i < n; i++) {
-            yr[i] = bRe[perm[i]];
-            yi[i] = bIm[perm[i]];
+            yr[i] = bRe[perm[i]] * rowScale[perm[i]];
+            yi[i] = bIm[perm[i]] * rowScale[perm[i]];
         }
         // Forward substitution with the unit lower triangle.
         for (int i = 0; i < n; i++) {

@@ -56,8 +56,8 @@ public final class MnaSystem {
     private final int size;
     private final Device[] devices;
     private final OpAmpDevice[] opAmps;
-    /** Op-amps by element name, for {@link #saturated} (a scan over the devices made that quadratic in the stage count). */
-    private final Map<String, OpAmpDevice> opAmpByName;
+    /** Index into {@link #opAmps} by element name, for {@link #saturated} (a scan over the devices made that quadratic in the stage count); shared by variants. */
+    private final Map<String, Integer> opAmpByName;
 
     private MnaSystem(Circuit circuit) {
         this.circuit = circuit;
@@ -96,10 +96,10 @@ public final class MnaSystem {
         this.opAmpByName = byName(opAmps);
     }
 
-    private static Map<String, OpAmpDevice> byName(OpAmpDevice[] opAmps) {
-        Map<String, OpAmpDevice> byName = new HashMap<>();
-        for (OpAmpDevice o : opAmps) {
-            byName.put(o.part.name(), o);
+    private static Map<String, Integer> byName(OpAmpDevice[] opAmps) {
+        Map<String, Integer> byName = new HashMap<>();
+        for (int j = 0; j < opAmps.length; j++) {
+            byName.put(opAmps[j].part.name(), j);
         }
         return Collections.unmodifiableMap(byName);
     }
@@ -129,7 +129,10 @@ public final class MnaSystem {
             devices[i] = device(list.get(i));
         }
         this.opAmps = opAmpDevices(devices);
-        this.opAmpByName = byName(opAmps);
+        this.opAmpByName = template.opAmpByName; // same elements in the same order
+        // The pattern and the floating-node check depend only on the topology, which is the template's.
+        this.pattern = template.pattern();
+        this.floating = template.floating;
     }
 
     /**
@@ -141,19 +144,33 @@ public final class MnaSystem {
      * @throws AnalysisException BAD_REQUEST when the nodes or the elements' names, types or terminals differ
      */
     public MnaSystem withValuesOf(Circuit circuit) {
-        List<Element> mine = this.circuit.elements();
-        List<Element> theirs = circuit.elements();
-        boolean same = circuit.nodes().equals(this.circuit.nodes()) && mine.size() == theirs.size();
-        for (int i = 0; same && i < mine.size(); i++) {
-            Element a = mine.get(i);
-            Element b = theirs.get(i);
-            same = a.getClass() == b.getClass() && a.name().equals(b.name()) && a.terminals().equals(b.terminals());
-        }
-        if (!same) {
+        if (!hasTopologyOf(circuit)) {
             throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
                     "the circuit's topology differs from this system's; assemble it with MnaSystem.of");
         }
         return new MnaSystem(this, circuit);
+    }
+
+    /**
+     * Whether {@code circuit} has this system's nodes and the same elements (type, name,
+     * terminals) in the same order, so that {@link #withValuesOf} accepts it.
+     */
+    public boolean hasTopologyOf(Circuit circuit) {
+        return circuit.sameTopologyAs(this.circuit);
+    }
+
+    /**
+     * The nodes without a DC path ({@link FloatingNodes#find}), found once per topology: the
+     * answer depends only on the elements' types and terminals, so systems made by
+     * {@link #withValuesOf} share it.
+     */
+    List<String> floatingNodes() {
+        List<String> f = floating;
+        if (f == null) {
+            f = List.copyOf(FloatingNodes.find(circuit));
+            floating = f;
+        }
+        return f;
     }
 
     /** Assemble the equations of {@code circuit}. */
@@ -324,6 +341,30 @@ public final class MnaSystem {
             return columns.length;
         }
 
+        private volatile int[] fillOrder;
+
+        /**
+         * A fill-reducing column order of this pattern (minimum degree on A + Aᵀ, as
+         * {@link SparseLu} makes it), made once and shared by every solver factoring a matrix of
+         * this pattern. The caller must not change the array.
+         */
+        int[] fillOrder() {
+            int[] o = fillOrder;
+            if (o == null) {
+                int words = (size + 63) >>> 6;
+                long[] bits = new long[size * words];
+                for (int i = 0; i < size; i++) {
+                    for (int k = rowStart[i]; k < rowStart[i + 1]; k++) {
+                        int j = columns[k];
+                        bits[i * words + (j >>> 6)] |= 1L << (j & 63);
+                    }
+                }
+                o = SparseLu.minimumDegree(bits, size, words);
+                fillOrder = o;
+            }
+            return o;
+        }
+
         /** Index of entry (row, col) in the value arrays. */
         int slot(int row, int col) {
             int lo = rowStart[row];
@@ -345,11 +386,37 @@ public final class MnaSystem {
 
     private volatile Pattern pattern;
 
+    /** Positions (row·size + column) recorded while the pattern is made, repeats allowed. */
+    static final class Positions {
+        private long[] keys = new long[64];
+        private int count;
+
+        void add(long key) {
+            if (count == keys.length) {
+                keys = java.util.Arrays.copyOf(keys, 2 * count);
+            }
+            keys[count++] = key;
+        }
+
+        long[] sortedDistinct() {
+            long[] k = java.util.Arrays.copyOf(keys, count);
+            java.util.Arrays.sort(k);
+            int m = 0;
+            for (int i = 0; i < k.length; i++) {
+                if (m == 0 || k[i] != k[m - 1]) {
+                    k[m++] = k[i];
+                }
+            }
+            return java.util.Arrays.copyOf(k, m);
+        }
+    }
+    private volatile List<String> floating;
+
     /** The sparsity pattern of G and C (made once, on first use). */
     Pattern pattern() {
         Pattern p = pattern;
         if (p == null) {
-            java.util.Set<Long> seen = new java.util.HashSet<>();
+            Positions seen = new Positions();
             double[] x = new double[size];
             double[] f = new double[size];
             double[] q = new double[size];
@@ -364,7 +431,7 @@ public final class MnaSystem {
             for (int i = 0; i < size; i++) {
                 seen.add((long) i * size + i); // gmin on node rows; a diagonal slot everywhere
             }
-            long[] keys = seen.stream().mapToLong(Long::longValue).sorted().toArray();
+            long[] keys = seen.sortedDistinct();
             int[] rowStart = new int[size + 1];
             int[] columns = new int[keys.length];
             for (int k = 0; k < keys.length; k++) {
@@ -428,11 +495,11 @@ public final class MnaSystem {
      * that is whether the part has left its linear region.
      */
     public boolean saturated(double[] x, String name) {
-        OpAmpDevice o = opAmpByName.get(name);
-        if (o == null) {
+        Integer j = opAmpByName.get(name);
+        if (j == null) {
             throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
         }
-        return o.saturated(x);
+        return opAmps[j].saturated(x);
     }
 
     /** Number of op-amps, in circuit order (for the DC solver's limiter handling). */
@@ -547,7 +614,7 @@ public final class MnaSystem {
         final double[] gs;
         final double[] cs;
         /** When not null, the stamp only records the positions it would write (row·size + column). */
-        final java.util.Set<Long> record;
+        final Positions record;
         final int size;
 
         Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale) {
@@ -555,7 +622,7 @@ public final class MnaSystem {
         }
 
         Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale,
-              Pattern pattern, double[] gs, double[] cs, java.util.Set<Long> record, int size) {
+              Pattern pattern, double[] gs, double[] cs, Positions record, int size) {
             this.limit = limit;
             this.gainScale = gainScale;
             this.x = x;

@@ -55,7 +55,21 @@ final class PassbandFinder {
         this.maxCornerEvaluations = maxCornerEvaluations;
     }
 
+    /** The peak of |H| over the range (grid and Brent refinement as {@link #find}), without the corners. */
+    AcPassband findPeak(double fStartHz, double fStopHz) {
+        return search(fStartHz, fStopHz, false, false);
+    }
+
     AcPassband find(double fStartHz, double fStopHz) {
+        return search(fStartHz, fStopHz, true, true);
+    }
+
+    /** The peak and only the corners asked for (the other is left empty, its search skipped). */
+    AcPassband find(double fStartHz, double fStopHz, boolean lowerCorner, boolean upperCorner) {
+        return search(fStartHz, fStopHz, lowerCorner, upperCorner);
+    }
+
+    private AcPassband search(double fStartHz, double fStopHz, boolean lowerCorner, boolean upperCorner) {
         double u0 = Math.log10(fStartHz);
         double u1 = Math.log10(fStopHz);
         int m = (int) Math.min(AcAnalysis.MAX_GRID_POINTS,
@@ -80,11 +94,14 @@ final class PassbandFinder {
             uPeak = refined.getPoint();
             peak = refined.getValue();
         }
+        if (!lowerCorner && !upperCorner) {
+            return new AcPassband(Math.pow(10, uPeak), peak, OptionalDouble.empty(), OptionalDouble.empty());
+        }
         double ref = peak;
         UnivariateFunction below = x -> at(x) / ref - CORNER_RATIO;
         OptionalDouble lower = OptionalDouble.empty();
         double last = uPeak;
-        for (int k = m - 1; k >= 0; k--) {
+        for (int k = m - 1; lowerCorner && k >= 0; k--) {
             if (u[k] >= uPeak) {
                 continue;
             }
@@ -96,7 +113,7 @@ final class PassbandFinder {
         }
         OptionalDouble upper = OptionalDouble.empty();
         last = uPeak;
-        for (int k = 0; k < m; k++) {
+        for (int k = 0; upperCorner && k < m; k++) {
             if (u[k] <= uPeak) {
                 continue;
             }

@@ -70,6 +70,8 @@ public final class SparseLu implements LinearSolver {
     private double[] gathered;
     /** Whether the factors' patterns and pivot order may serve a numeric {@link #refactor}. */
     private boolean refactorReady;
+    /** Whether no entry has been recorded in {@link #pattern} since it was allocated. */
+    private boolean bitsEmpty;
 
     public SparseLu() {
         this(DEFAULT_TOO_SMALL);
@@ -94,6 +96,7 @@ public final class SparseLu implements LinearSolver {
         lastPattern = null; // the column store is about to hold a dense matrix's entries
         refactorReady = false;
         boolean grew = scatter(a);
+        bitsEmpty = false;
         if (grew || order == null) {
             order = minimumDegree();
         }
@@ -160,7 +163,10 @@ public final class SparseLu implements LinearSolver {
                     pattern[base + (j >>> 6)] |= 1L << (j & 63);
                 }
             }
-            order = minimumDegree();
+            // A fresh union pattern equals p's: take p's shared order (the same algorithm on
+            // the same graph) instead of making it again.
+            order = bitsEmpty ? p.fillOrder() : minimumDegree();
+            bitsEmpty = false;
             lastPattern = p;
             refactorReady = false;
         }
@@ -299,6 +305,7 @@ public final class SparseLu implements LinearSolver {
         ax = new double[ai.length];
         words = (size + 63) >>> 6;
         pattern = new long[size * words];
+        bitsEmpty = true;
         order = null;
         lp = new int[size + 1];
         up = new int[size + 1];
@@ -382,13 +389,22 @@ public final class SparseLu implements LinearSolver {
      * eliminated and its neighbours joined into a clique.
      */
     private int[] minimumDegree() {
+        return minimumDegree(pattern, n, words);
+    }
+
+    /**
+     * Minimum-degree order of the pattern {@code bits} (n rows of {@code words} 64-bit words,
+     * row-major) made symmetric; see {@link #minimumDegree()}. Shared with
+     * {@link MnaSystem.Pattern#fillOrder()} and {@link SparseComplexLu}.
+     */
+    static int[] minimumDegree(long[] bits, int n, int words) {
         long[] adj = new long[n * words];
         for (int i = 0; i < n; i++) {
             for (int w = 0; w < words; w++) {
-                long bits = pattern[i * words + w];
-                while (bits != 0) {
-                    int j = (w << 6) + Long.numberOfTrailingZeros(bits);
-                    bits &= bits - 1;
+                long row = bits[i * words + w];
+                while (row != 0) {
+                    int j = (w << 6) + Long.numberOfTrailingZeros(row);
+                    row &= row - 1;
                     if (j != i) {
                         adj[i * words + (j >>> 6)] |= 1L << (j & 63);
                         adj[j * words + (i >>> 6)] |= 1L << (i & 63);
@@ -398,7 +414,7 @@ public final class SparseLu implements LinearSolver {
         }
         int[] degree = new int[n];
         for (int i = 0; i < n; i++) {
-            degree[i] = popCount(adj, i);
+            degree[i] = popCount(adj, i, words);
         }
         boolean[] gone = new boolean[n];
         int[] result = new int[n];
@@ -415,24 +431,24 @@ public final class SparseLu implements LinearSolver {
             long vbit = 1L << (v & 63);
             int vw = v >>> 6;
             for (int w = 0; w < words; w++) {
-                long bits = adj[vb + w];
-                while (bits != 0) {
-                    int u = (w << 6) + Long.numberOfTrailingZeros(bits);
-                    bits &= bits - 1;
+                long row = adj[vb + w];
+                while (row != 0) {
+                    int u = (w << 6) + Long.numberOfTrailingZeros(row);
+                    row &= row - 1;
                     int ub = u * words;
                     for (int z = 0; z < words; z++) {
                         adj[ub + z] |= adj[vb + z];
                     }
                     adj[ub + (u >>> 6)] &= ~(1L << (u & 63));
                     adj[ub + vw] &= ~vbit;
-                    degree[u] = popCount(adj, u);
+                    degree[u] = popCount(adj, u, words);
                 }
             }
         }
         return result;
     }
 
-    private int popCount(long[] adj, int i) {
+    private static int popCount(long[] adj, int i, int words) {
         int count = 0;
         for (int w = 0; w < words; w++) {
             count += Long.bitCount(adj[i * words + w]);

@@ -122,6 +122,57 @@ class DenseComplexLuTest {
         assertResidualSmall(re, im, bRe, bIm, xRe, xIm);
     }
 
+    @Test
+    void aPivotIsMeasuredAgainstItsOwnRowNotAgainstALargerRowInItsColumn() {
+        // Row 0 in the units of an op-amp state row (1e10), row 1 in siemens (1e-5): the second
+        // pivot, 1e-5, is half its own row's largest entry but 1e-15 of column 1's largest. Exact
+        // solution of x0 + x1 = 1, x0 + 2·x1 = 1 (each row divided by its scale): x = (1, 0).
+        double[][] re = {{1e10, 1e10}, {1e-5, 2e-5}};
+        double[][] im = {{0, 0}, {0, 0}};
+        double[] xRe = {1e10, 1e-5};
+        double[] xIm = {0, 0};
+        DenseComplexLu lu = new DenseComplexLu();
+        lu.factor(copy(re), copy(im), 2);
+        lu.solve(xRe, xIm);
+        assertEquals(1, xRe[0], 1e-15);
+        assertEquals(0, xRe[1], 1e-15);
+    }
+
+    @Test
+    void aChainOfSixGainElevenStagesIsNotCalledSingular() {
+        // Regression: at 2.25 kHz the six-stage chain's last pivot came from a node row of
+        // conductances near 1e-4 S and was 1e-14 of the op-amp row's 1.4e4 in the same column; the
+        // column-relative threshold called the system singular. Against Commons Math's complex LU.
+        OperatingPoint op = DcSolver.operatingPoint(OpAmpChains.chain(6));
+        MnaSystem s = op.system();
+        int n = s.size();
+        double[][] g = new double[n][n];
+        double[][] c = new double[n][n];
+        s.evaluate(op.solution(), 0, Mode.DYNAMIC, 1, 0, new double[n], g, new double[n], c);
+        double omega = 2 * Math.PI * 2253.9339047347926;
+        double[][] re = new double[n][n];
+        double[][] im = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                re[i][j] = g[i][j];
+                im[i][j] = omega * c[i][j];
+            }
+        }
+        double[] bRe = s.sourceDirection("VSIG");
+        double[] bIm = new double[n];
+        Complex[] expected = commonsMathSolve(re, im, bRe, bIm);
+        double[] xRe = bRe.clone();
+        double[] xIm = bIm.clone();
+        DenseComplexLu lu = new DenseComplexLu();
+        lu.factor(copy(re), copy(im), n);
+        lu.solve(xRe, xIm);
+        for (int i = 0; i < n; i++) {
+            double scale = Math.max(1e-9, expected[i].abs());
+            assertEquals(expected[i].getReal(), xRe[i], 1e-9 * scale, s.unknownName(i));
+            assertEquals(expected[i].getImaginary(), xIm[i], 1e-9 * scale, s.unknownName(i));
+        }
+    }
+
     private static void fillRandom(Random random, double[][] re, double[][] im, double[] bRe, double[] bIm,
                                    boolean wideScale) {
         int n = re.length;
