@@ -28,12 +28,12 @@ final class Bandwidth implements DesignCheck {
         ChainReport ch = e.chain();
         if (ch.lowerCornerHz().isPresent() && ch.lowerCornerHz().getAsDouble() > ch.bandLowHz()) {
             Optional<CapacitorReport> highest = e.capacitors().stream()
-                    .filter(c -> c.signalPeakVolts() > 0 && !c.element().startsWith("CREF"))
-                    .max(Comparator.comparingDouble(CapacitorReport::cornerHz));
+                    .filter(c -> c.signalPeakVolts() > 0 && !c.element().startsWith("CREF") && c.cornerHz().isPresent())
+                    .max(Comparator.comparingDouble(c -> c.cornerHz().getAsDouble()));
             String suggestion = highest.map(c -> {
-                double target = ESeries.E6.nextHigher(c.farads() * c.cornerHz() * CORNER_MARGIN / ch.bandLowHz());
-                return "the highest single corner is " + c.element() + " at " + Quantities.hertz(c.cornerHz())
-                        + " (sees " + Quantities.ohms(c.seenOhms()) + "); raise it to " + Quantities.farads(target);
+                double target = ESeries.E6.nextHigher(c.farads() * c.cornerHz().getAsDouble() * CORNER_MARGIN / ch.bandLowHz());
+                return "the highest single corner is " + c.element() + " at " + Quantities.hertz(c.cornerHz().getAsDouble())
+                        + " (sees " + Quantities.ohms(c.seenOhms().getAsDouble()) + "); raise it to " + Quantities.farads(target);
             }).orElse("raise the coupling capacitors so that each corner lies well below the band");
             out.add(Finding.of(LOW_CORNER, Severity.WARN, "the chain's lower −3 dB point is "
                             + Quantities.hertz(ch.lowerCornerHz().getAsDouble()) + ", above the band's low end "

@@ -1,5 +1,7 @@
 package halfrail.check;
 
+import java.util.OptionalDouble;
+
 /**
  * One capacitor of a design at the nominal operating point.
  *
@@ -15,11 +17,13 @@ package halfrail.check;
  * @param polarised      whether reverse voltage harms it
  * @param seenOhms       resistance its terminals see in the middle of the band (geometric mean of its ends),
  *                       with every source held and every other capacitor at its impedance there — the
- *                       short-circuit time-constant method; Ω
- * @param cornerHz       its own network corner 1/(2π·R·C), Hz
+ *                       short-circuit time-constant method; Ω. Empty when the circuit with the capacitor
+ *                       taken out is singular there (the capacitor closes the only finite path, or a loop
+ *                       round it has so much gain that the figure means nothing)
+ * @param cornerHz       its own network corner 1/(2π·R·C), Hz; empty with {@code seenOhms}
  * @param limitLeakageAmps leakage at its limit value and working voltage, A
  */
 public record CapacitorReport(String element, String designPath, String technology, double farads, double dcVolts,
                               double signalPeakVolts, double worstVolts, double ratedVolts, double deratedVolts,
-                              boolean polarised, double seenOhms, double cornerHz, double limitLeakageAmps) {
+                              boolean polarised, OptionalDouble seenOhms, OptionalDouble cornerHz, double limitLeakageAmps) {
 }

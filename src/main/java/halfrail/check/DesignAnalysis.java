@@ -222,8 +222,9 @@ public final class DesignAnalysis {
                 double worst = Math.max(Math.abs(dc), Math.max(Math.abs(dcLow), Math.abs(dcHigh))) + sigPeak;
                 double override = design.thresholds().capacitorDeratingOverride();
                 double derated = override > 0 ? override * c.ratedVolts() : tech.deratedVolts(c.ratedVolts());
-                double seen = seenOhms(ac, c, Math.sqrt(bandLow * bandHigh));
-                double corner = 1 / (2 * Math.PI * seen * c.farads());
+                OptionalDouble seen = seenOhms(ac, c, Math.sqrt(bandLow * bandHigh));
+                OptionalDouble corner = seen.isPresent()
+                        ? OptionalDouble.of(1 / (2 * Math.PI * seen.getAsDouble() * c.farads())) : OptionalDouble.empty();
                 double leak = tech.leakageAmps(c.farads(), c.ratedVolts(), Math.abs(dc), LeakageLevel.LIMIT);
                 capacitors.add(new CapacitorReport(c.name(), nominal.designPath(c.name()), tech.id(), c.farads(), dc,
                         sigPeak, worst, c.ratedVolts(), derated, c.polarised(), seen, corner, leak));
@@ -274,9 +275,21 @@ public final class DesignAnalysis {
          * count, say, the divider behind a decoupled reference that the band never sees. The
          * capacitor is taken out of the nominal linearisation ({@link AcAnalysis#impedanceWithout}):
          * one more factorisation of the analysis already made, at the nominal operating point.
+         * Empty when the circuit without the capacitor is singular at hz: a long cascade sharing one
+         * soft reference can close a loop whose gain (the product of the stage gains, 1e16 for
+         * sixteen stages of 11) leaves that circuit singular to working precision. The figure only
+         * feeds the corner suggestion, so the rest of the analysis stands without it.
          */
-        private double seenOhms(AcAnalysis ac, Capacitor c, double hz) {
-            return ac.impedanceWithout(c.name(), hz).magnitude();
+        private OptionalDouble seenOhms(AcAnalysis ac, Capacitor c, double hz) {
+            try {
+                double ohms = ac.impedanceWithout(c.name(), hz).magnitude();
+                return Double.isFinite(ohms) ? OptionalDouble.of(ohms) : OptionalDouble.empty();
+            } catch (AnalysisException e) {
+                if (e.kind() != AnalysisException.Kind.SINGULAR) {
+                    throw e;
+                }
+                return OptionalDouble.empty();
+            }
         }
 
         private ChainReport chain(AcAnalysis ac) {
