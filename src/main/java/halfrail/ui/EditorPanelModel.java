@@ -714,48 +714,21 @@ public final class EditorPanelModel {
     /** The figures of a custom op-amp, in the order of {@link halfrail.circuit.OpAmpParams}'s components. */
     private void customOpAmpFields(List<Field> f, String path, Function<Design, OpAmpChoice> get,
                                    BiFunction<Design, OpAmpChoice, Design> set) {
-        String[] labels = {"open-loop gain", "gain-bandwidth", "slew rate, V/µs", "input offset", "input bias current",
-            "input offset current", "input floor above V−", "input top below V+", "output floor above V−",
-            "output top below V+", "output resistance", "quiescent current", "supply, lowest", "supply, highest"};
-        Unit[] units = {Unit.NONE, Unit.HERTZ, Unit.NONE, Unit.VOLT, Unit.AMPERE, Unit.AMPERE, Unit.VOLT, Unit.VOLT,
-            Unit.VOLT, Unit.VOLT, Unit.OHM, Unit.AMPERE, Unit.VOLT, Unit.VOLT};
-        String[] help = {"DC open-loop gain, V/V.", "Gain-bandwidth product.", "Output slew-rate limit in V/µs.",
-            "Input offset voltage.", "Input bias current into each input.", "Input offset current.",
-            "Lowest usable input, as headroom above the negative rail (negative: below it).",
-            "Highest usable input, as headroom below the positive rail (negative: above it).",
-            "Lowest output, as headroom above the negative rail.", "Highest output, as headroom below the positive rail.",
-            "Open-loop output resistance.", "Supply current with no load.", "Lowest total supply the part is specified for.",
-            "Highest total supply the part is specified for (\"no limit\" for none)."};
-        for (int i = 0; i < labels.length; i++) {
+        for (int i = 0; i < OpAmpFigures.LABELS.length; i++) {
             int index = i;
-            double scale = index == 2 ? 1e-6 : 1;
-            Unit unit = units[i];
-            f.add(new TextEntry(this, labels[i], path + ".custom." + i, unit.symbol(), help[i],
-                    x -> {
-                        double v = opAmpFigures(custom(get.apply(x)))[index] * scale;
-                        return Double.isInfinite(v) ? NO_LIMIT : EngineeringValue.format(v, unit);
-                    },
+            f.add(new TextEntry(this, OpAmpFigures.LABELS[i], path + ".custom." + i, OpAmpFigures.UNITS[i].symbol(),
+                    OpAmpFigures.HELP[i],
+                    x -> OpAmpFigures.text(index, OpAmpFigures.of(custom(get.apply(x)))[index]),
                     (x, t) -> {
-                        double[] all = opAmpFigures(custom(get.apply(x)));
-                        all[index] = index == 13 && t.trim().equalsIgnoreCase(NO_LIMIT) ? Double.POSITIVE_INFINITY
-                                : EngineeringValue.parse(t, unit) / scale;
-                        return set.apply(x, OpAmpChoice.custom(new halfrail.circuit.OpAmpParams(all[0], all[1], all[2],
-                                all[3], all[4], all[5], all[6], all[7], all[8], all[9], all[10], all[11], all[12], all[13])));
+                        double[] all = OpAmpFigures.of(custom(get.apply(x)));
+                        all[index] = OpAmpFigures.value(index, t);
+                        return set.apply(x, OpAmpChoice.custom(OpAmpFigures.params(all)));
                     }));
         }
     }
 
-    /** Shown for a custom op-amp's unlimited supply range. */
-    static final String NO_LIMIT = "no limit";
-
     private static halfrail.circuit.OpAmpParams custom(OpAmpChoice c) {
         return c.customParams().orElseThrow(() -> new IllegalArgumentException("the op-amp is not a custom part"));
-    }
-
-    private static double[] opAmpFigures(halfrail.circuit.OpAmpParams p) {
-        return new double[] {p.openLoopGain(), p.gainBandwidthHz(), p.slewRateVoltsPerSecond(), p.offsetVolts(),
-            p.biasAmps(), p.offsetCurrentAmps(), p.commonModeLowVolts(), p.commonModeHighVolts(), p.swingLowVolts(),
-            p.swingHighVolts(), p.outputOhms(), p.quiescentAmps(), p.supplyMinVolts(), p.supplyMaxVolts()};
     }
 
     /** Technology, value and rating of one capacitor; an optional one can be left out through its technology. */
