@@ -264,6 +264,10 @@ public final class AcAnalysis {
         System.arraycopy(b, 0, xRe, 0, n);
         java.util.Arrays.fill(xIm, 0);
         lu.solve(xRe, xIm);
+        SolveAudit.Listener audit = SolveAudit.listener;
+        if (audit != null) {
+            audit.acSolve(system, g, c, omega, b, xRe, xIm);
+        }
     }
 
     private static double value(double[] x, int i) {

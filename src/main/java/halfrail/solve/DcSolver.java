@@ -809,6 +809,11 @@ public final class DcSolver {
                     vn + p.swingLowVolts(), vp - p.swingHighVolts(), cmLow, cmHigh,
                     system.saturated(x, o.name()), cmOk, io, p.quiescentAmps() + ioSource));
         }
-        return new OperatingPoint(system, x, volts, amps, states, strategy, iterations, residual);
+        OperatingPoint op = new OperatingPoint(system, x, volts, amps, states, strategy, iterations, residual);
+        SolveAudit.Listener audit = SolveAudit.listener;
+        if (audit != null) {
+            audit.operatingPoint(op);
+        }
+        return op;
     }
 }
