@@ -85,6 +85,11 @@ public final class SolveAuditor implements SolveAudit.Listener {
         return new long[] {INSTANCE.operatingPoints.get(), INSTANCE.powerOnRuns.get(), INSTANCE.acSolves.get()};
     }
 
+    /** As {@link #drain()}, for tests in other packages that attribute violations themselves (surveys). */
+    public static AssertionError takeViolations() {
+        return drain();
+    }
+
     /** Takes the violations recorded since the last call: null when there were none. */
     static AssertionError drain() {
         AssertionError first = null;
