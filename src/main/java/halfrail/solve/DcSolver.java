@@ -21,8 +21,10 @@ import java.util.Map;
  * ({@link OperatingPoint.Strategy#GAIN_STEPPING}), gmin stepping and source stepping. The
  * strategy that succeeded is reported. Each loop is bounded by a named limit and ends in
  * {@link AnalysisException} of kind NO_CONVERGENCE, or SINGULAR when the linearised circuit is
- * singular and no strategy succeeds (a loop of voltage sources, for example). Nodes without a DC
- * path are reported before any solve as FLOATING_NODE.
+ * singular and no strategy succeeds (a loop of voltage sources, for example); its message names
+ * each strategy tried and where it stopped (the unknown Newton could not settle, the gmin or
+ * source level or gain fraction reached). Nodes without a DC path are reported before any solve
+ * as FLOATING_NODE.
  *
  * <p>Op-amp limiter handling. Beyond its knee the limiter is flat, so its Newton linearisation
  * says the output does not depend on the inputs; a saturated output whose target has moved to
@@ -143,6 +145,10 @@ public final class DcSolver {
     /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
     private double gainScale = 1;
     private boolean linearStartSingular;
+    /** How the last failed Newton solve ended (for the failure message). */
+    private String newtonStall = "";
+    /** What each strategy of the current solve reached before it gave up (for the failure message). */
+    private final List<String> tried = new ArrayList<>();
 
     public DcSolver(MnaSystem system) {
         this(system, LinearSolvers.forSize(system.size()));
@@ -198,9 +204,11 @@ public final class DcSolver {
         } else {
             linearStartOr(x);
         }
+        tried.clear();
         if (newton(x, 1, 0)) {
             return result(x, OperatingPoint.Strategy.NEWTON);
         }
+        tried.add("Newton from " + (guess != null ? "the given start" : "the linearised circuit") + ": " + newtonStall);
         if (limiterActiveSet(x)) {
             return result(x, OperatingPoint.Strategy.LIMITER_ACTIVE_SET);
         }
@@ -223,6 +231,7 @@ public final class DcSolver {
     OperatingPoint solveUsing(OperatingPoint.Strategy strategy) {
         checkFloating();
         iterations = 0;
+        tried.clear();
         double[] x = new double[n];
         linearStartOr(x);
         boolean ok = switch (strategy) {
@@ -248,15 +257,25 @@ public final class DcSolver {
     }
 
     private AnalysisException failure() {
+        String what = tried.isEmpty() ? "" : "; tried: " + String.join("; ", tried);
         if (linearStartSingular) {
             return new AnalysisException(AnalysisException.Kind.SINGULAR,
                     "the circuit equations are singular (for example a loop of voltage sources or two"
-                            + " driven outputs tied together), and no strategy found an operating point");
+                            + " driven outputs tied together), and no strategy found an operating point" + what);
         }
         return new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
-                "the operating point did not converge: Newton (" + MAX_NEWTON_ITERATIONS
-                        + " iterations), the limiter active-set search, gain stepping, gmin stepping from " + GMIN_START
-                        + " S and source stepping down to steps of " + MIN_SOURCE_STEP + " all failed");
+                "the operating point did not converge" + what);
+    }
+
+    /** Three significant digits, for messages. */
+    private static String g3(double v) {
+        return String.format(java.util.Locale.ROOT, "%.3g", v);
+    }
+
+    /** Records a failed strategy's outcome and returns false. */
+    private boolean gaveUp(String strategy, String reached) {
+        tried.add(strategy + ": " + reached + (newtonStall.isEmpty() ? "" : " (Newton: " + newtonStall + ")"));
+        return false;
     }
 
     /** The solution of the circuit with every limiter switched off, from x = 0. */
@@ -310,9 +329,11 @@ public final class DcSolver {
         boolean consistent = false;
         int released = -1;
         int releasedFrom = ROW_UNLIMITED;
+        int passesUsed = 0;
         for (int pass = 0; pass < passes && !consistent; pass++) {
+            passesUsed = pass + 1;
             if (!heldModeNewton(trial, mode)) {
-                return false;
+                return gaveUp("limiter active-set search", "a solve with the modes held failed in pass " + passesUsed);
             }
             if (released >= 0) {
                 // A clamped op-amp just made linear whose linear solution lies beyond the edge it
@@ -377,8 +398,13 @@ public final class DcSolver {
                 mode[worst] = worstMode;
             }
         }
-        if (!consistent || !newton(trial, 1, 0)) {
-            return false;
+        if (!consistent) {
+            newtonStall = "";
+            return gaveUp("limiter active-set search", "no consistent set of linear/clamped modes in " + passesUsed
+                    + " passes");
+        }
+        if (!newton(trial, 1, 0)) {
+            return gaveUp("limiter active-set search", "the modes were consistent but Newton from them failed");
         }
         System.arraycopy(trial, 0, x, 0, n);
         return true;
@@ -390,11 +416,13 @@ public final class DcSolver {
             iterations++;
             System.arraycopy(mode, 0, rowKind, 0, opAmpCount);
             if (!step(x, 1, 0)) {
+                newtonStall = "the circuit with the modes held was singular at iteration " + (it + 1);
                 return false;
             }
             boolean converged = true;
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(dx[i])) {
+                    newtonStall = "a non-finite step at iteration " + (it + 1);
                     return false;
                 }
                 double next = x[i] + dx[i];
@@ -409,6 +437,7 @@ public final class DcSolver {
                 return true;
             }
         }
+        newtonStall = MAX_NEWTON_ITERATIONS + " iterations with the modes held";
         return false;
     }
 
@@ -436,13 +465,15 @@ public final class DcSolver {
         try {
             gainScale = level;
             if (!newton(trial, 1, 0)) {
-                return false;
+                return gaveUp("gain stepping", "no solution even at " + g3(level) + " of the op-amps' gains");
             }
             double factor = GAIN_STEP_FACTOR;
             int solves = 0;
             while (level < 1) {
                 if (++solves > MAX_GAIN_STEPS) {
-                    return false;
+                    newtonStall = "";
+                    return gaveUp("gain stepping", MAX_GAIN_STEPS + " solves reached " + g3(level)
+                            + " of the op-amps' gains");
                 }
                 double next = Math.min(1, level * factor);
                 System.arraycopy(trial, 0, last, 0, n);
@@ -454,7 +485,8 @@ public final class DcSolver {
                     System.arraycopy(last, 0, trial, 0, n);
                     factor = Math.sqrt(factor);
                     if (factor < MIN_GAIN_STEP_FACTOR) {
-                        return false;
+                        return gaveUp("gain stepping", "stalled at " + g3(level)
+                                + " of the op-amps' gains (step factor below " + MIN_GAIN_STEP_FACTOR + ")");
                     }
                 }
             }
@@ -470,11 +502,11 @@ public final class DcSolver {
         linearStartOr(trial);
         for (double gmin = GMIN_START; gmin >= GMIN_END; gmin /= GMIN_FACTOR) {
             if (!newton(trial, 1, gmin)) {
-                return false;
+                return gaveUp("gmin stepping", "failed at a shunt of " + g3(gmin) + " S on every node");
             }
         }
         if (!newton(trial, 1, 0)) {
-            return false;
+            return gaveUp("gmin stepping", "reached " + GMIN_END + " S but failed without the shunts");
         }
         System.arraycopy(trial, 0, x, 0, n);
         return true;
@@ -486,12 +518,14 @@ public final class DcSolver {
         double scale = 0;
         double step = 0.1;
         if (!newton(trial, 0, 0)) {
-            return false;
+            return gaveUp("source stepping", "no solution with every source at zero");
         }
         int solves = 0;
         while (scale < 1) {
             if (++solves > MAX_SOURCE_STEPS) {
-                return false;
+                newtonStall = "";
+                return gaveUp("source stepping", MAX_SOURCE_STEPS + " solves reached " + Math.round(100 * scale)
+                        + " % of the sources");
             }
             double next = Math.min(1, scale + step);
             System.arraycopy(trial, 0, last, 0, n);
@@ -502,7 +536,8 @@ public final class DcSolver {
                 System.arraycopy(last, 0, trial, 0, n);
                 step /= 4;
                 if (step < MIN_SOURCE_STEP) {
-                    return false;
+                    return gaveUp("source stepping", "stalled at " + g3(100 * scale) + " % of the sources (step below "
+                            + MIN_SOURCE_STEP + ")");
                 }
             }
         }
@@ -512,23 +547,30 @@ public final class DcSolver {
 
     /** Newton at one source scale and gmin; updates x in place; true when converged. */
     private boolean newton(double[] x, double scale, double gmin) {
+        int worst = -1;
+        double worstMove = 0;
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             iterations++;
             boolean anyUnlimited = chooseRows(x, scale);
             if (!step(x, scale, gmin)) {
+                newtonStall = "the linearised circuit was singular at iteration " + (it + 1);
                 return false;
             }
             boolean residualOk = residualAcceptable();
             if (anyUnlimited && undoAgainstTarget(x, scale)) {
                 if (!step(x, scale, gmin)) {
+                    newtonStall = "the linearised circuit was singular at iteration " + (it + 1);
                     return false;
                 }
             }
             // An iteration that used an unlimited state row solved other equations than the
             // circuit's: it may not end the loop, however small its step.
             boolean converged = residualOk && !anyUnlimitedRow();
+            worst = -1;
+            worstMove = 0;
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(dx[i])) {
+                    newtonStall = "a non-finite step at iteration " + (it + 1);
                     return false;
                 }
                 double next = x[i] + dx[i];
@@ -536,6 +578,10 @@ public final class DcSolver {
                         + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
                 if (Math.abs(dx[i]) > tol) {
                     converged = false;
+                    if (Math.abs(dx[i]) > worstMove) {
+                        worstMove = Math.abs(dx[i]);
+                        worst = i;
+                    }
                 }
                 x[i] = next;
             }
@@ -546,6 +592,10 @@ public final class DcSolver {
                 return true;
             }
         }
+        newtonStall = MAX_NEWTON_ITERATIONS + " iterations, "
+                + (worst < 0 ? "the steps small but the equations not met"
+                : system.unknownName(worst) + " still moving by " + g3(worstMove) + (isVoltage(worst) ? " V" : " A")
+                + " a step");
         return false;
     }
 

@@ -247,6 +247,24 @@ class DcConvergenceTest {
     }
 
     @Test
+    @DisplayName("a failed operating point says what each strategy tried and where it stopped")
+    void theFailureNamesEveryStrategyAndWhereItStopped() {
+        Circuit c = StageCircuits.supplyAndMid().nodes("hi", "lo", "out")
+                .voltageSource("VH", "hi", "0", 6)
+                .voltageSource("VL", "lo", "0", 3)
+                .opAmp("UA", "hi", "mid", "vcc", "0", "out", TestAmps.bipolarSwing())
+                .opAmp("UB", "lo", "mid", "vcc", "0", "out", TestAmps.bipolarSwing())
+                .build();
+        AnalysisException e = assertThrows(AnalysisException.class, () -> DcSolver.operatingPoint(c));
+        String m = e.getMessage();
+        for (String strategy : java.util.List.of("Newton from the linearised circuit", "limiter active-set search",
+                "gain stepping", "gmin stepping", "source stepping")) {
+            assertTrue(m.contains(strategy + ": "), strategy + " missing from: " + m);
+        }
+        assertTrue(m.contains("singular at iteration 1"), m);
+    }
+
+    @Test
     void loopOfVoltageSourcesIsSingular() {
         Circuit c = Circuit.builder().node("a")
                 .voltageSource("V1", "a", "0", 5)
