@@ -82,6 +82,33 @@ public final class DcSolver {
     /** Largest number of source-stepping solves. */
     public static final int MAX_SOURCE_STEPS = 400;
 
+    /**
+     * Pseudo-time step at the start of pseudo-transient continuation, relative: each node and
+     * op-amp state row's diagonal is multiplied by 1 + 1/δ, so a small δ takes small, steepest-
+     * descent-like steps and a large one plain Newton steps.
+     */
+    public static final double PSEUDO_TRANSIENT_START = 1e-3;
+    /** Relative pseudo-time step beyond which pseudo-transient continuation hands over to Newton. */
+    public static final double PSEUDO_TRANSIENT_END = 1e10;
+    /** Smallest relative pseudo-time step before pseudo-transient continuation gives up. */
+    public static final double PSEUDO_TRANSIENT_MIN = 1e-9;
+    /** Largest number of pseudo-time steps. */
+    public static final int MAX_PSEUDO_TRANSIENT_STEPS = 2000;
+    /** Largest factor by which the pseudo-time step grows in one step. */
+    public static final double PSEUDO_TRANSIENT_GROWTH = 10;
+    /**
+     * Relative pseudo-time step from which pseudo-transient continuation tries plain Newton from
+     * its current point (again at each further factor of {@link #PSEUDO_TRANSIENT_NEWTON_EVERY}).
+     */
+    public static final double PSEUDO_TRANSIENT_NEWTON_FROM = 1e2;
+    /** Factor of pseudo-time step between two Newton attempts of pseudo-transient continuation. */
+    public static final double PSEUDO_TRANSIENT_NEWTON_EVERY = 100;
+    /**
+     * Residual size (V, see residualSize) below which pseudo-transient continuation accepts any
+     * step and hands over to Newton: rounding, not the march, sets the residual there.
+     */
+    public static final double PSEUDO_TRANSIENT_SETTLED_VOLTS = 1e-6;
+
     /** Largest total violation, V, at which the limiter active-set search accepts a set of modes. */
     public static final double ACTIVE_SET_TOLERANCE = 1e-9;
     /** Mode changes allowed per op-amp in the limiter active-set search (plus {@link #ACTIVE_SET_EXTRA_PASSES}). */
@@ -145,6 +172,8 @@ public final class DcSolver {
     /** Factor on every op-amp's open-loop gain in the current solve: 1 except during gain stepping. */
     private double gainScale = 1;
     private boolean linearStartSingular;
+    /** 1/δ of pseudo-transient continuation while it runs (see {@link #step}); 0 otherwise. */
+    private double pseudoInverseStep;
     /** How the last failed Newton solve ended (for the failure message). */
     private String newtonStall = "";
     /** What each strategy of the current solve reached before it gave up (for the failure message). */
@@ -221,6 +250,9 @@ public final class DcSolver {
         if (sourceStepping(x)) {
             return result(x, OperatingPoint.Strategy.SOURCE_STEPPING);
         }
+        if (pseudoTransient(x)) {
+            return result(x, OperatingPoint.Strategy.PSEUDO_TRANSIENT);
+        }
         throw failure();
     }
 
@@ -240,6 +272,7 @@ public final class DcSolver {
             case GAIN_STEPPING -> gainStepping(x);
             case GMIN_STEPPING -> gminStepping(x);
             case SOURCE_STEPPING -> sourceStepping(x);
+            case PSEUDO_TRANSIENT -> pseudoTransient(x);
         };
         if (!ok) {
             throw failure();
@@ -545,6 +578,117 @@ public final class DcSolver {
         return true;
     }
 
+    /**
+     * Pseudo-transient continuation (Kelley and Keyes, "Convergence analysis of pseudo-transient
+     * continuation", SIAM J. Numer. Anal. 35 (1998) 508–523): damped Newton steps
+     * x ← x − (J + D/δ)⁻¹·f(x) on the true, limited equations, D the diagonal of J in the node and
+     * op-amp state rows (the algebraic rows of sources and output pins get none), as if every node
+     * had a capacitor to ground and every state its pole, marching in pseudo-time towards the
+     * steady state. δ starts at {@link #PSEUDO_TRANSIENT_START} and follows the switched evolution
+     * relaxation rule δ ← δ·‖f_old‖/‖f_new‖ (at least doubling while the residual does not grow, at
+     * most ×{@link #PSEUDO_TRANSIENT_GROWTH} per step; ‖·‖ see residualSize, in volts); a step that
+     * is singular, not finite or grows the residual tenfold is retried with δ/10. From δ ≥ {@link #PSEUDO_TRANSIENT_END}
+     * plain Newton finishes. The last resort: the path follows the circuit's own settling rather
+     * than a homotopy, which reaches operating points where op-amps in a loop keep the
+     * undamped Newton steps jumping between rails. Bounded by {@link #MAX_PSEUDO_TRANSIENT_STEPS}
+     * and {@link #PSEUDO_TRANSIENT_MIN}; updates x only on success.
+     */
+    private boolean pseudoTransient(double[] x) {
+        double[] trial = new double[n];
+        double[] last = new double[n];
+        linearStartOr(trial);
+        Arrays.fill(rowKind, ROW_LIMITED);
+        double delta = PSEUDO_TRANSIENT_START;
+        double before = residualSize(trial);
+        double newtonAt = PSEUDO_TRANSIENT_NEWTON_FROM;
+        double[] probe = new double[n];
+        boolean settledTried = false;
+        try {
+            for (int k = 0; k < MAX_PSEUDO_TRANSIENT_STEPS && delta < PSEUDO_TRANSIENT_END; k++) {
+                boolean settledNow = before <= PSEUDO_TRANSIENT_SETTLED_VOLTS && !settledTried;
+                if (delta >= newtonAt || settledNow) {
+                    settledTried |= settledNow;
+                    newtonAt = Math.max(newtonAt, delta * PSEUDO_TRANSIENT_NEWTON_EVERY);
+                    System.arraycopy(trial, 0, probe, 0, n);
+                    pseudoInverseStep = 0;
+                    if (newton(probe, 1, 0)) {
+                        System.arraycopy(probe, 0, x, 0, n);
+                        return true;
+                    }
+                    Arrays.fill(rowKind, ROW_LIMITED);
+                }
+                iterations++;
+                System.arraycopy(trial, 0, last, 0, n);
+                pseudoInverseStep = 1 / delta;
+                boolean ok = step(trial, 1, 0);
+                for (int i = 0; ok && i < n; i++) {
+                    trial[i] += dx[i];
+                    ok = Double.isFinite(trial[i]);
+                }
+                double after = ok ? residualSize(trial) : Double.NaN;
+                if (!ok || !(after <= 10 * before + PSEUDO_TRANSIENT_SETTLED_VOLTS)) {
+                    System.arraycopy(last, 0, trial, 0, n);
+                    delta /= 10;
+                    if (delta < PSEUDO_TRANSIENT_MIN) {
+                        newtonStall = "";
+                        return gaveUp("pseudo-transient continuation", "the pseudo-time step fell below "
+                                + PSEUDO_TRANSIENT_MIN + " after " + (k + 1) + " steps");
+                    }
+                    continue;
+                }
+                // Switched evolution relaxation, at least doubling while the residual does not grow.
+                double ratio = after > 0 ? before / after : PSEUDO_TRANSIENT_GROWTH;
+                delta *= Math.min(PSEUDO_TRANSIENT_GROWTH, ratio >= 1 ? Math.max(2, ratio) : ratio);
+                before = after;
+            }
+        } finally {
+            pseudoInverseStep = 0;
+        }
+        if (delta < PSEUDO_TRANSIENT_END) {
+            newtonStall = "";
+            return gaveUp("pseudo-transient continuation", MAX_PSEUDO_TRANSIENT_STEPS + " steps reached a pseudo-time"
+                    + " step of only " + g3(delta) + ": the march did not settle, as when the circuit oscillates or"
+                    + " has no stable operating point");
+        }
+        if (!newton(trial, 1, 0)) {
+            return gaveUp("pseudo-transient continuation", "the march reached plain Newton steps (relative step "
+                    + PSEUDO_TRANSIENT_END + ") but Newton did not converge from there");
+        }
+        System.arraycopy(trial, 0, x, 0, n);
+        return true;
+    }
+
+    /** Node rows that hold a branch current (a source or op-amp output), whose current absorbs their KCL residual. */
+    private boolean[] nodeWithBranch;
+
+    /**
+     * The residual's size for pseudo-transient continuation, in volts: the largest |f_i| of the
+     * source, output-pin and op-amp state equations, and |f_i / J_ii| of the node rows without a
+     * branch current (a node row with one has its residual absorbed by that current in one step).
+     */
+    private double residualSize(double[] x) {
+        system.evaluate(x, 0, Mode.DC, 1, 0, true, gainScale, sparse != null, f, g, null, null);
+        jacobianAtX = false;
+        if (nodeWithBranch == null) {
+            nodeWithBranch = new boolean[nodeCount];
+            for (int i = 0; i < nodeCount; i++) {
+                for (int j = nodeCount; j < nodeCount + branchCount; j++) {
+                    nodeWithBranch[i] |= g[i][j] != 0;
+                }
+            }
+        }
+        double worst = 0;
+        for (int i = 0; i < n; i++) {
+            double d = g[i][i];
+            if (i >= nodeCount) {
+                worst = Math.max(worst, Math.abs(f[i]));
+            } else if (d != 0 && !nodeWithBranch[i]) {
+                worst = Math.max(worst, Math.abs(f[i] / d));
+            }
+        }
+        return worst;
+    }
+
     /** Newton at one source scale and gmin; updates x in place; true when converged. */
     private boolean newton(double[] x, double scale, double gmin) {
         int worst = -1;
@@ -622,6 +766,14 @@ public final class DcSolver {
                 case ROW_CLAMP_HIGH -> system.clampedStateRow(j, x, true, f, g);
                 case ROW_CLAMP_LOW -> system.clampedStateRow(j, x, false, f, g);
                 default -> { }
+            }
+        }
+        if (pseudoInverseStep > 0) {
+            // Pseudo-transient continuation: a pseudo-capacitance on every node and state row.
+            for (int i = 0; i < n; i++) {
+                if (i < nodeCount || i >= nodeCount + branchCount) {
+                    g[i][i] *= 1 + pseudoInverseStep;
+                }
             }
         }
         for (int i = 0; i < nodeCount; i++) {
