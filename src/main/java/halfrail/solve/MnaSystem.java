@@ -772,11 +772,27 @@ public final class MnaSystem {
                 dLo = 0;
                 dHi = 0;
             } else if (half <= 0) {
-                // Supplies too low for any window: the output rests midway.
+                // Supplies too low for any window: the output rests midway between the crossed
+                // limits, but never beyond a supply pin (an output stage without its supply cannot
+                // drive the pin past either rail; common practice). At hi = lo both limits lie
+                // between the pins, so the clamp keeps the target continuous.
                 limited = 0.5 * (hi + lo);
                 dU = 0;
                 dLo = 0.5;
                 dHi = 0.5;
+                double pinLow = s.v(vn);
+                double pinHigh = s.v(vp);
+                if (pinLow <= pinHigh) {
+                    if (limited < pinLow) {
+                        limited = pinLow;
+                        dLo = 1;
+                        dHi = 0;
+                    } else if (limited > pinHigh) {
+                        limited = pinHigh;
+                        dLo = 0;
+                        dHi = 1;
+                    }
+                }
             } else {
                 // In a narrow window the knee is a quarter of the window, k = (hi − lo)/4, and so
                 // depends on both edges: ∂k/∂hi = 1/4, ∂k/∂lo = −1/4.

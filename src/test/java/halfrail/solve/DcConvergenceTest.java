@@ -290,6 +290,25 @@ class DcConvergenceTest {
         KclCheck.assertHolds(c, op);
     }
 
+    @Test
+    @DisplayName("an op-amp without any output window never rests beyond its own supply pins")
+    void withoutAWindowTheOutputStaysBetweenItsSupplyPins() {
+        // 1 V supply, headrooms 20 mV and 1.5 V: the limits 0.02 V and −0.5 V cross; their mean,
+        // −0.24 V, lies below V−, where an unpowered output stage cannot drive its pin (common
+        // practice): the output rests on V−, 0 V.
+        OpAmpParams p = TestAmps.bipolarSwing().withSwing(0.02, 1.5);
+        Circuit c = Circuit.builder().nodes("vcc", "mid", "out")
+                .voltageSource("VBAT", "vcc", "0", 1)
+                .resistor("RA", "vcc", "mid", 100e3)
+                .resistor("RB", "mid", "0", 100e3)
+                .resistor("RL", "out", "mid", 10e3)
+                .opAmp("U1", "mid", "out", "vcc", "0", "out", p)
+                .build();
+        OperatingPoint op = DcSolver.operatingPoint(c);
+        assertEquals(0.0, op.opAmp("U1").orElseThrow().outputVolts(), 1e-3);
+        KclCheck.assertHolds(c, op);
+    }
+
     @ParameterizedTest
     @EnumSource(OperatingPoint.Strategy.class)
     @DisplayName("each strategy on its own solves the mixed cascade to the same point and reports itself")
