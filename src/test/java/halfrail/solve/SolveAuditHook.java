@@ -17,9 +17,12 @@ import java.util.Optional;
  * number, so that jqwik reports (and shrinks) the input that did it.
  */
 public final class SolveAuditHook implements AroundTryHook {
+    /** Tries this hook has wrapped (SolveAuditHookTest checks that jqwik runs it). */
+    static final java.util.concurrent.atomic.AtomicLong TRIES = new java.util.concurrent.atomic.AtomicLong();
 
     @Override
     public TryExecutionResult aroundTry(TryLifecycleContext context, TryExecutor executor, List<Object> parameters) {
+        TRIES.incrementAndGet();
         SolveAuditor.install();
         TryExecutionResult result = executor.execute(parameters);
         AssertionError e = SolveAuditor.drain();
