@@ -35,8 +35,8 @@ import java.util.OptionalDouble;
  * {@link #GRID_POINTS_PER_DECADE} decade) may be missed.
  *
  * <p>Before each factorisation every row of {@code G + jωC} (and of b) is divided by the power of
- * two nearest below its largest coefficient (row equilibration; Higham, Accuracy and Stability of
- * Numerical Algorithms, 2nd ed., §9.8). The modified nodal equations mix rows of microsiemens
+ * two nearest below its largest coefficient (row equilibration, as {@link DenseLu} does for DC;
+ * Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed., ch. 9 — from memory). The modified nodal equations mix rows of microsiemens
  * (a node tied in by a bias resistor) with op-amp rows of A·ωp ≈ 1e7: unscaled, partial pivoting
  * bounds the rounding only against the largest rows, which left a node fed through one 180 kΩ
  * resistor 30 % off in a two-stage chain, and made the pivot test call a high-gain cascade

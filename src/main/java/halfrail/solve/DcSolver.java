@@ -580,7 +580,7 @@ public final class DcSolver {
 
     /**
      * Pseudo-transient continuation (Kelley and Keyes, "Convergence analysis of pseudo-transient
-     * continuation", SIAM J. Numer. Anal. 35 (1998) 508–523): damped Newton steps
+     * continuation", SIAM J. Numer. Anal. 35 (1998), from memory): damped Newton steps
      * x ← x − (J + D/δ)⁻¹·f(x) on the true, limited equations, D the diagonal of J in the node and
      * op-amp state rows (the algebraic rows of sources and output pins get none), as if every node
      * had a capacitor to ground and every state its pole, marching in pseudo-time towards the
