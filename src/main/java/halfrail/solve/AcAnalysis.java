@@ -480,6 +480,33 @@ public final class AcAnalysis {
         } else {
             lu.solve(xRe, xIm);
         }
+        SolveAudit.Listener audit = SolveAudit.listener;
+        if (audit != null) {
+            if (sparse != null) {
+                if (auditG == null) {
+                    auditG = auditDense(gValues);
+                    auditC = auditDense(cValues);
+                }
+                audit.acSolve(system, auditG, auditC, omega, b, xRe, xIm);
+            } else {
+                audit.acSolve(system, g, c, omega, b, xRe, xIm);
+            }
+        }
+    }
+
+    /** The sparse path's G and C as dense matrices, made on the first audited solve (tests only). */
+    private double[][] auditG;
+    private double[][] auditC;
+
+    /** G or C of the sparse path as a dense matrix, for the test-only audit (never in production). */
+    private double[][] auditDense(double[] values) {
+        double[][] m = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int k = pattern.rowStart[i]; k < pattern.rowStart[i + 1]; k++) {
+                m[i][pattern.columns[k]] = values[k];
+            }
+        }
+        return m;
     }
 
     /** G + jωC into the work arrays of the path in use. */

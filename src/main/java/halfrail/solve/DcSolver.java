@@ -21,8 +21,10 @@ import java.util.Map;
  * ({@link OperatingPoint.Strategy#GAIN_STEPPING}), gmin stepping and source stepping. The
  * strategy that succeeded is reported. Each loop is bounded by a named limit and ends in
  * {@link AnalysisException} of kind NO_CONVERGENCE, or SINGULAR when the linearised circuit is
- * singular and no strategy succeeds (a loop of voltage sources, for example). Nodes without a DC
- * path are reported before any solve as FLOATING_NODE.
+ * singular and no strategy succeeds (a loop of voltage sources, for example); its message names
+ * each strategy tried and where it stopped (the unknown Newton could not settle, the gmin or
+ * source level or gain fraction reached). Nodes without a DC path are reported before any solve
+ * as FLOATING_NODE.
  *
  * <p>Op-amp limiter handling. Beyond its knee the limiter is flat, so its Newton linearisation
  * says the output does not depend on the inputs; a saturated output whose target has moved to
@@ -79,6 +81,33 @@ public final class DcSolver {
     public static final double MIN_SOURCE_STEP = 1e-4;
     /** Largest number of source-stepping solves. */
     public static final int MAX_SOURCE_STEPS = 400;
+
+    /**
+     * Pseudo-time step at the start of pseudo-transient continuation, relative: each node and
+     * op-amp state row's diagonal is multiplied by 1 + 1/δ, so a small δ takes small, steepest-
+     * descent-like steps and a large one plain Newton steps.
+     */
+    public static final double PSEUDO_TRANSIENT_START = 1e-3;
+    /** Relative pseudo-time step beyond which pseudo-transient continuation hands over to Newton. */
+    public static final double PSEUDO_TRANSIENT_END = 1e10;
+    /** Smallest relative pseudo-time step before pseudo-transient continuation gives up. */
+    public static final double PSEUDO_TRANSIENT_MIN = 1e-9;
+    /** Largest number of pseudo-time steps. */
+    public static final int MAX_PSEUDO_TRANSIENT_STEPS = 2000;
+    /** Largest factor by which the pseudo-time step grows in one step. */
+    public static final double PSEUDO_TRANSIENT_GROWTH = 10;
+    /**
+     * Relative pseudo-time step from which pseudo-transient continuation tries plain Newton from
+     * its current point (again at each further factor of {@link #PSEUDO_TRANSIENT_NEWTON_EVERY}).
+     */
+    public static final double PSEUDO_TRANSIENT_NEWTON_FROM = 1e2;
+    /** Factor of pseudo-time step between two Newton attempts of pseudo-transient continuation. */
+    public static final double PSEUDO_TRANSIENT_NEWTON_EVERY = 100;
+    /**
+     * Residual size (V, see residualSize) below which pseudo-transient continuation accepts any
+     * step and hands over to Newton: rounding, not the march, sets the residual there.
+     */
+    public static final double PSEUDO_TRANSIENT_SETTLED_VOLTS = 1e-6;
 
     /** Largest total violation, V, at which the limiter active-set search accepts a set of modes. */
     public static final double ACTIVE_SET_TOLERANCE = 1e-9;
@@ -145,6 +174,12 @@ public final class DcSolver {
     private boolean linearStartSingular;
     /** The array {@link #solveVectorFrom} answers in (made on first use, handed on by {@link #reusedFor}). */
     private double[] vector;
+    /** 1/δ of pseudo-transient continuation while it runs (see {@link #step}); 0 otherwise. */
+    private double pseudoInverseStep;
+    /** How the last failed Newton solve ended (for the failure message). */
+    private String newtonStall = "";
+    /** What each strategy of the current solve reached before it gave up (for the failure message). */
+    private final List<String> tried = new ArrayList<>();
 
     public DcSolver(MnaSystem system) {
         this(system, LinearSolvers.forSize(system.size()));
@@ -261,9 +296,11 @@ public final class DcSolver {
         } else {
             linearStartOr(x);
         }
+        tried.clear();
         if (newton(x, 1, 0)) {
             return OperatingPoint.Strategy.NEWTON;
         }
+        tried.add("Newton from " + (guess != null ? "the given start" : "the linearised circuit") + ": " + newtonStall);
         if (limiterActiveSet(x)) {
             return OperatingPoint.Strategy.LIMITER_ACTIVE_SET;
         }
@@ -276,6 +313,9 @@ public final class DcSolver {
         if (sourceStepping(x)) {
             return OperatingPoint.Strategy.SOURCE_STEPPING;
         }
+        if (pseudoTransient(x)) {
+            return OperatingPoint.Strategy.PSEUDO_TRANSIENT;
+        }
         return null;
     }
 
@@ -286,6 +326,7 @@ public final class DcSolver {
     OperatingPoint solveUsing(OperatingPoint.Strategy strategy) {
         checkFloating();
         iterations = 0;
+        tried.clear();
         double[] x = new double[n];
         linearStartOr(x);
         boolean ok = switch (strategy) {
@@ -294,6 +335,7 @@ public final class DcSolver {
             case GAIN_STEPPING -> gainStepping(x);
             case GMIN_STEPPING -> gminStepping(x);
             case SOURCE_STEPPING -> sourceStepping(x);
+            case PSEUDO_TRANSIENT -> pseudoTransient(x);
         };
         if (!ok) {
             throw failure();
@@ -311,15 +353,25 @@ public final class DcSolver {
     }
 
     private AnalysisException failure() {
+        String what = tried.isEmpty() ? "" : "; tried: " + String.join("; ", tried);
         if (linearStartSingular) {
             return new AnalysisException(AnalysisException.Kind.SINGULAR,
                     "the circuit equations are singular (for example a loop of voltage sources or two"
-                            + " driven outputs tied together), and no strategy found an operating point");
+                            + " driven outputs tied together), and no strategy found an operating point" + what);
         }
         return new AnalysisException(AnalysisException.Kind.NO_CONVERGENCE,
-                "the operating point did not converge: Newton (" + MAX_NEWTON_ITERATIONS
-                        + " iterations), the limiter active-set search, gain stepping, gmin stepping from " + GMIN_START
-                        + " S and source stepping down to steps of " + MIN_SOURCE_STEP + " all failed");
+                "the operating point did not converge" + what);
+    }
+
+    /** Three significant digits, for messages. */
+    private static String g3(double v) {
+        return String.format(java.util.Locale.ROOT, "%.3g", v);
+    }
+
+    /** Records a failed strategy's outcome and returns false. */
+    private boolean gaveUp(String strategy, String reached) {
+        tried.add(strategy + ": " + reached + (newtonStall.isEmpty() ? "" : " (Newton: " + newtonStall + ")"));
+        return false;
     }
 
     /** The solution of the circuit with every limiter switched off, from x = 0. */
@@ -373,9 +425,11 @@ public final class DcSolver {
         boolean consistent = false;
         int released = -1;
         int releasedFrom = ROW_UNLIMITED;
+        int passesUsed = 0;
         for (int pass = 0; pass < passes && !consistent; pass++) {
+            passesUsed = pass + 1;
             if (!heldModeNewton(trial, mode)) {
-                return false;
+                return gaveUp("limiter active-set search", "a solve with the modes held failed in pass " + passesUsed);
             }
             if (released >= 0) {
                 // A clamped op-amp just made linear whose linear solution lies beyond the edge it
@@ -440,8 +494,13 @@ public final class DcSolver {
                 mode[worst] = worstMode;
             }
         }
-        if (!consistent || !newton(trial, 1, 0)) {
-            return false;
+        if (!consistent) {
+            newtonStall = "";
+            return gaveUp("limiter active-set search", "no consistent set of linear/clamped modes in " + passesUsed
+                    + " passes");
+        }
+        if (!newton(trial, 1, 0)) {
+            return gaveUp("limiter active-set search", "the modes were consistent but Newton from them failed");
         }
         System.arraycopy(trial, 0, x, 0, n);
         return true;
@@ -453,11 +512,13 @@ public final class DcSolver {
             iterations++;
             System.arraycopy(mode, 0, rowKind, 0, opAmpCount);
             if (!step(x, 1, 0)) {
+                newtonStall = "the circuit with the modes held was singular at iteration " + (it + 1);
                 return false;
             }
             boolean converged = true;
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(dx[i])) {
+                    newtonStall = "a non-finite step at iteration " + (it + 1);
                     return false;
                 }
                 double next = x[i] + dx[i];
@@ -472,6 +533,7 @@ public final class DcSolver {
                 return true;
             }
         }
+        newtonStall = MAX_NEWTON_ITERATIONS + " iterations with the modes held";
         return false;
     }
 
@@ -499,13 +561,15 @@ public final class DcSolver {
         try {
             gainScale = level;
             if (!newton(trial, 1, 0)) {
-                return false;
+                return gaveUp("gain stepping", "no solution even at " + g3(level) + " of the op-amps' gains");
             }
             double factor = GAIN_STEP_FACTOR;
             int solves = 0;
             while (level < 1) {
                 if (++solves > MAX_GAIN_STEPS) {
-                    return false;
+                    newtonStall = "";
+                    return gaveUp("gain stepping", MAX_GAIN_STEPS + " solves reached " + g3(level)
+                            + " of the op-amps' gains");
                 }
                 double next = Math.min(1, level * factor);
                 System.arraycopy(trial, 0, last, 0, n);
@@ -517,7 +581,8 @@ public final class DcSolver {
                     System.arraycopy(last, 0, trial, 0, n);
                     factor = Math.sqrt(factor);
                     if (factor < MIN_GAIN_STEP_FACTOR) {
-                        return false;
+                        return gaveUp("gain stepping", "stalled at " + g3(level)
+                                + " of the op-amps' gains (step factor below " + MIN_GAIN_STEP_FACTOR + ")");
                     }
                 }
             }
@@ -533,11 +598,11 @@ public final class DcSolver {
         linearStartOr(trial);
         for (double gmin = GMIN_START; gmin >= GMIN_END; gmin /= GMIN_FACTOR) {
             if (!newton(trial, 1, gmin)) {
-                return false;
+                return gaveUp("gmin stepping", "failed at a shunt of " + g3(gmin) + " S on every node");
             }
         }
         if (!newton(trial, 1, 0)) {
-            return false;
+            return gaveUp("gmin stepping", "reached " + GMIN_END + " S but failed without the shunts");
         }
         System.arraycopy(trial, 0, x, 0, n);
         return true;
@@ -549,12 +614,14 @@ public final class DcSolver {
         double scale = 0;
         double step = 0.1;
         if (!newton(trial, 0, 0)) {
-            return false;
+            return gaveUp("source stepping", "no solution with every source at zero");
         }
         int solves = 0;
         while (scale < 1) {
             if (++solves > MAX_SOURCE_STEPS) {
-                return false;
+                newtonStall = "";
+                return gaveUp("source stepping", MAX_SOURCE_STEPS + " solves reached " + Math.round(100 * scale)
+                        + " % of the sources");
             }
             double next = Math.min(1, scale + step);
             System.arraycopy(trial, 0, last, 0, n);
@@ -565,7 +632,8 @@ public final class DcSolver {
                 System.arraycopy(last, 0, trial, 0, n);
                 step /= 4;
                 if (step < MIN_SOURCE_STEP) {
-                    return false;
+                    return gaveUp("source stepping", "stalled at " + g3(100 * scale) + " % of the sources (step below "
+                            + MIN_SOURCE_STEP + ")");
                 }
             }
         }
@@ -573,25 +641,143 @@ public final class DcSolver {
         return true;
     }
 
+    /**
+     * Pseudo-transient continuation (Kelley and Keyes, "Convergence analysis of pseudo-transient
+     * continuation", SIAM J. Numer. Anal. 35 (1998), from memory): damped Newton steps
+     * x ← x − (J + D/δ)⁻¹·f(x) on the true, limited equations, D the diagonal of J in the node and
+     * op-amp state rows (the algebraic rows of sources and output pins get none), as if every node
+     * had a capacitor to ground and every state its pole, marching in pseudo-time towards the
+     * steady state. δ starts at {@link #PSEUDO_TRANSIENT_START} and follows the switched evolution
+     * relaxation rule δ ← δ·‖f_old‖/‖f_new‖ (at least doubling while the residual does not grow, at
+     * most ×{@link #PSEUDO_TRANSIENT_GROWTH} per step; ‖·‖ see residualSize, in volts); a step that
+     * is singular, not finite or grows the residual tenfold is retried with δ/10. From δ ≥ {@link #PSEUDO_TRANSIENT_END}
+     * plain Newton finishes. The last resort: the path follows the circuit's own settling rather
+     * than a homotopy, which reaches operating points where op-amps in a loop keep the
+     * undamped Newton steps jumping between rails. Bounded by {@link #MAX_PSEUDO_TRANSIENT_STEPS}
+     * and {@link #PSEUDO_TRANSIENT_MIN}; updates x only on success.
+     */
+    private boolean pseudoTransient(double[] x) {
+        double[] trial = new double[n];
+        double[] last = new double[n];
+        linearStartOr(trial);
+        Arrays.fill(rowKind, ROW_LIMITED);
+        double delta = PSEUDO_TRANSIENT_START;
+        double before = residualSize(trial);
+        double newtonAt = PSEUDO_TRANSIENT_NEWTON_FROM;
+        double[] probe = new double[n];
+        boolean settledTried = false;
+        try {
+            for (int k = 0; k < MAX_PSEUDO_TRANSIENT_STEPS && delta < PSEUDO_TRANSIENT_END; k++) {
+                boolean settledNow = before <= PSEUDO_TRANSIENT_SETTLED_VOLTS && !settledTried;
+                if (delta >= newtonAt || settledNow) {
+                    settledTried |= settledNow;
+                    newtonAt = Math.max(newtonAt, delta * PSEUDO_TRANSIENT_NEWTON_EVERY);
+                    System.arraycopy(trial, 0, probe, 0, n);
+                    pseudoInverseStep = 0;
+                    if (newton(probe, 1, 0)) {
+                        System.arraycopy(probe, 0, x, 0, n);
+                        return true;
+                    }
+                    Arrays.fill(rowKind, ROW_LIMITED);
+                }
+                iterations++;
+                System.arraycopy(trial, 0, last, 0, n);
+                pseudoInverseStep = 1 / delta;
+                boolean ok = step(trial, 1, 0);
+                for (int i = 0; ok && i < n; i++) {
+                    trial[i] += dx[i];
+                    ok = Double.isFinite(trial[i]);
+                }
+                double after = ok ? residualSize(trial) : Double.NaN;
+                if (!ok || !(after <= 10 * before + PSEUDO_TRANSIENT_SETTLED_VOLTS)) {
+                    System.arraycopy(last, 0, trial, 0, n);
+                    delta /= 10;
+                    if (delta < PSEUDO_TRANSIENT_MIN) {
+                        newtonStall = "";
+                        return gaveUp("pseudo-transient continuation", "the pseudo-time step fell below "
+                                + PSEUDO_TRANSIENT_MIN + " after " + (k + 1) + " steps");
+                    }
+                    continue;
+                }
+                // Switched evolution relaxation, at least doubling while the residual does not grow.
+                double ratio = after > 0 ? before / after : PSEUDO_TRANSIENT_GROWTH;
+                delta *= Math.min(PSEUDO_TRANSIENT_GROWTH, ratio >= 1 ? Math.max(2, ratio) : ratio);
+                before = after;
+            }
+        } finally {
+            pseudoInverseStep = 0;
+        }
+        if (delta < PSEUDO_TRANSIENT_END) {
+            newtonStall = "";
+            return gaveUp("pseudo-transient continuation", MAX_PSEUDO_TRANSIENT_STEPS + " steps reached a pseudo-time"
+                    + " step of only " + g3(delta) + ": the march did not settle, as when the circuit oscillates or"
+                    + " has no stable operating point");
+        }
+        if (!newton(trial, 1, 0)) {
+            return gaveUp("pseudo-transient continuation", "the march reached plain Newton steps (relative step "
+                    + PSEUDO_TRANSIENT_END + ") but Newton did not converge from there");
+        }
+        System.arraycopy(trial, 0, x, 0, n);
+        return true;
+    }
+
+    /** Node rows that hold a branch current (a source or op-amp output), whose current absorbs their KCL residual. */
+    private boolean[] nodeWithBranch;
+
+    /**
+     * The residual's size for pseudo-transient continuation, in volts: the largest |f_i| of the
+     * source, output-pin and op-amp state equations, and |f_i / J_ii| of the node rows without a
+     * branch current (a node row with one has its residual absorbed by that current in one step).
+     */
+    private double residualSize(double[] x) {
+        system.evaluate(x, 0, Mode.DC, 1, 0, true, gainScale, sparse != null, f, g, null, null);
+        jacobianAtX = false;
+        if (nodeWithBranch == null) {
+            nodeWithBranch = new boolean[nodeCount];
+            for (int i = 0; i < nodeCount; i++) {
+                for (int j = nodeCount; j < nodeCount + branchCount; j++) {
+                    nodeWithBranch[i] |= g[i][j] != 0;
+                }
+            }
+        }
+        double worst = 0;
+        for (int i = 0; i < n; i++) {
+            double d = g[i][i];
+            if (i >= nodeCount) {
+                worst = Math.max(worst, Math.abs(f[i]));
+            } else if (d != 0 && !nodeWithBranch[i]) {
+                worst = Math.max(worst, Math.abs(f[i] / d));
+            }
+        }
+        return worst;
+    }
+
     /** Newton at one source scale and gmin; updates x in place; true when converged. */
     private boolean newton(double[] x, double scale, double gmin) {
+        int worst = -1;
+        double worstMove = 0;
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             iterations++;
             boolean anyUnlimited = chooseRows(x, scale);
             if (!step(x, scale, gmin)) {
+                newtonStall = "the linearised circuit was singular at iteration " + (it + 1);
                 return false;
             }
             boolean residualOk = residualAcceptable();
             if (anyUnlimited && undoAgainstTarget(x, scale)) {
                 if (!step(x, scale, gmin)) {
+                    newtonStall = "the linearised circuit was singular at iteration " + (it + 1);
                     return false;
                 }
             }
             // An iteration that used an unlimited state row solved other equations than the
             // circuit's: it may not end the loop, however small its step.
             boolean converged = residualOk && !anyUnlimitedRow();
+            worst = -1;
+            worstMove = 0;
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(dx[i])) {
+                    newtonStall = "a non-finite step at iteration " + (it + 1);
                     return false;
                 }
                 double next = x[i] + dx[i];
@@ -599,6 +785,10 @@ public final class DcSolver {
                         + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
                 if (Math.abs(dx[i]) > tol) {
                     converged = false;
+                    if (Math.abs(dx[i]) > worstMove) {
+                        worstMove = Math.abs(dx[i]);
+                        worst = i;
+                    }
                 }
                 x[i] = next;
             }
@@ -609,6 +799,10 @@ public final class DcSolver {
                 return true;
             }
         }
+        newtonStall = MAX_NEWTON_ITERATIONS + " iterations, "
+                + (worst < 0 ? "the steps small but the equations not met"
+                : system.unknownName(worst) + " still moving by " + g3(worstMove) + (isVoltage(worst) ? " V" : " A")
+                + " a step");
         return false;
     }
 
@@ -635,6 +829,14 @@ public final class DcSolver {
                 case ROW_CLAMP_HIGH -> system.clampedStateRow(j, x, true, f, g);
                 case ROW_CLAMP_LOW -> system.clampedStateRow(j, x, false, f, g);
                 default -> { }
+            }
+        }
+        if (pseudoInverseStep > 0) {
+            // Pseudo-transient continuation: a pseudo-capacitance on every node and state row.
+            for (int i = 0; i < n; i++) {
+                if (i < nodeCount || i >= nodeCount + branchCount) {
+                    g[i][i] *= 1 + pseudoInverseStep;
+                }
             }
         }
         for (int i = 0; i < nodeCount; i++) {
@@ -877,6 +1079,11 @@ public final class DcSolver {
                     vn + p.swingLowVolts(), vp - p.swingHighVolts(), cmLow, cmHigh,
                     system.saturated(x, o.name()), cmOk, io, p.quiescentAmps() + ioSource));
         }
-        return new OperatingPoint(system, x, volts, amps, states, strategy, iterations, residual);
+        OperatingPoint op = new OperatingPoint(system, x, volts, amps, states, strategy, iterations, residual);
+        SolveAudit.Listener audit = SolveAudit.listener;
+        if (audit != null) {
+            audit.operatingPoint(op);
+        }
+        return op;
     }
 }

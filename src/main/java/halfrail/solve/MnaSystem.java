@@ -839,11 +839,27 @@ public final class MnaSystem {
                 dLo = 0;
                 dHi = 0;
             } else if (half <= 0) {
-                // Supplies too low for any window: the output rests midway.
+                // Supplies too low for any window: the output rests midway between the crossed
+                // limits, but never beyond a supply pin (an output stage without its supply cannot
+                // drive the pin past either rail; common practice). At hi = lo both limits lie
+                // between the pins, and the clamp is to the lower and the higher of the two pins
+                // whichever is which, so the target stays continuous (also through V+ = V−).
                 limited = 0.5 * (hi + lo);
                 dU = 0;
                 dLo = 0.5;
                 dHi = 0.5;
+                boolean vnLower = s.v(vn) <= s.v(vp);
+                double pinLow = vnLower ? s.v(vn) : s.v(vp);
+                double pinHigh = vnLower ? s.v(vp) : s.v(vn);
+                if (limited < pinLow) {
+                    limited = pinLow;
+                    dLo = vnLower ? 1 : 0;
+                    dHi = vnLower ? 0 : 1;
+                } else if (limited > pinHigh) {
+                    limited = pinHigh;
+                    dLo = vnLower ? 0 : 1;
+                    dHi = vnLower ? 1 : 0;
+                }
             } else {
                 // In a narrow window the knee is a quarter of the window, k = (hi − lo)/4, and so
                 // depends on both edges: ∂k/∂hi = 1/4, ∂k/∂lo = −1/4.

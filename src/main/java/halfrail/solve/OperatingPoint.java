@@ -31,7 +31,12 @@ public record OperatingPoint(MnaSystem system, double[] solution, Map<String, Do
         /** Newton with a shunt conductance on every node, stepped down to zero. */
         GMIN_STEPPING,
         /** Newton with all independent sources ramped up from zero. */
-        SOURCE_STEPPING
+        SOURCE_STEPPING,
+        /**
+         * Damped Newton steps marching in pseudo-time (a pseudo-capacitance on every node and
+         * op-amp state, shrinking as the residual falls), then Newton: the last resort.
+         */
+        PSEUDO_TRANSIENT
     }
 
     public OperatingPoint {

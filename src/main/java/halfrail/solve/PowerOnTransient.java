@@ -148,8 +148,13 @@ public final class PowerOnTransient {
             }
             loads.add(new PowerOnResult.LoadStep(node, peak, at));
         }
-        return new PowerOnResult(system, finalPoint, times, xs, run.orders(), run.restarts(), stats, ending,
-                band, watched, settled, settleTime, rails, loads);
+        PowerOnResult result = new PowerOnResult(system, finalPoint, times, xs, run.orders(), run.restarts(), stats,
+                ending, band, watched, settled, settleTime, rails, loads);
+        SolveAudit.Listener audit = SolveAudit.listener;
+        if (audit != null) {
+            audit.powerOn(result);
+        }
+        return result;
     }
 
     /** The watched nodes: every op-amp output, the named nodes and the load nodes; every node if none. */

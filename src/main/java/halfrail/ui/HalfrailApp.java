@@ -24,6 +24,7 @@ public class HalfrailApp extends Application {
     public static final double WINDOW_HEIGHT = 900;
 
     private static volatile Optional<DesignFileActions> fileActions = Optional.empty();
+    private static volatile Optional<java.nio.file.Path> stateFolder = Optional.empty();
 
     private AnalysisExecutor executor;
     private AnalysisExecutor studies;
@@ -37,6 +38,15 @@ public class HalfrailApp extends Application {
     /** When {@link #start} was called, ns ({@link System#nanoTime}). */
     private long startedNanos;
 
+    /**
+     * Keep the recovery files and instance locks in {@code folder} instead of the user's cache
+     * folder, and the recent-files list only for the run (null for the usual places). For tests
+     * and for a run that must leave the user's own state alone.
+     */
+    public static void useStateFolder(java.nio.file.Path folder) {
+        stateFolder = Optional.ofNullable(folder);
+    }
+
     @Override
     public void start(Stage stage) {
         startedNanos = System.nanoTime();
@@ -45,11 +55,27 @@ public class HalfrailApp extends Application {
         model = new WorkbenchModel(executor, studies, SampleDesigns.instrumentBoost(), fileActions);
         model.darkProperty().set(systemPrefersDark(System.getenv("GTK_THEME")));
         RecoveryStore recovery = null;
+        String instanceNote = null;
         if (fileActions.isPresent()) {
-            model.useRecentFiles(storedRecentFiles());
-            recovery = new RecoveryStore(RecoveryStore.defaultFolder(System.getenv(), System.getProperty("user.home")),
-                    fileActions.get());
-            model.useRecovery(recovery);
+            model.useRecentFiles(stateFolder.isPresent() ? new RecentFiles(List.of(), l -> { }) : storedRecentFiles());
+            java.nio.file.Path folder = stateFolder.orElseGet(() ->
+                    RecoveryStore.defaultFolder(System.getenv(), System.getProperty("user.home")));
+            try {
+                instance = InstanceLock.acquire(folder).orElse(null);
+            } catch (java.io.IOException e) {
+                instance = null;
+            }
+            if (instance != null) {
+                recovery = new RecoveryStore(folder, fileActions.get(), instance.slot());
+                model.useRecovery(recovery);
+                if (!instance.first()) {
+                    instanceNote = "Another Halfrail window is open: this one keeps its unsaved work in a recovery file"
+                            + " of its own (" + recovery.file().getFileName() + ")";
+                }
+            } else {
+                instanceNote = "Unsaved work of this window is not kept against a crash: the state folder " + folder
+                        + " could not be claimed (too many Halfrail windows, or not writable)";
+            }
         }
         WorkbenchView view = new WorkbenchView(model);
         if (Boolean.getBoolean(EXIT_AFTER_FIRST_ANALYSIS)) {
@@ -67,8 +93,13 @@ public class HalfrailApp extends Application {
         if (raw.size() == 1 && fileActions.isPresent()) {
             model.open(java.nio.file.Path.of(raw.get(0)));
         }
+        if (instanceNote != null) {
+            model.tellUser(instanceNote);
+        }
         if (recovery != null) {
-            offerRecovery(recovery);
+            // Asked after start() returns, so that the window is up and painted behind the question.
+            RecoveryStore kept = recovery;
+            javafx.application.Platform.runLater(() -> offerRecovery(kept));
             autosave = new javafx.animation.Timeline(new javafx.animation.KeyFrame(
                     javafx.util.Duration.seconds(RecoveryStore.AUTOSAVE_SECONDS), e -> model.autosave()));
             autosave.setCycleCount(javafx.animation.Animation.INDEFINITE);
@@ -77,6 +108,7 @@ public class HalfrailApp extends Application {
     }
 
     private javafx.animation.Timeline autosave;
+    private InstanceLock instance;
 
     /**
      * System property: when {@code true} the app quits as soon as the first analysis is on screen,
@@ -111,37 +143,41 @@ public class HalfrailApp extends Application {
 
     /** A recovery file from a session that did not close normally: offer to restore it. */
     private void offerRecovery(RecoveryStore recovery) {
-        java.util.Optional<Design> left;
-        try {
-            left = recovery.pending();
-        } catch (java.io.IOException e) {
-            model.tellUser("A recovery file was found but could not be read (" + e.getMessage() + "); it is left at "
-                    + recovery.file());
-            return;
-        }
-        if (left.isEmpty()) {
+        Optional<RecoveryPrompt> prompt = RecoveryPrompt.atStart(recovery, model);
+        if (prompt.isEmpty()) {
             return;
         }
         javafx.scene.control.Alert ask = new javafx.scene.control.Alert(javafx.scene.control.Alert.AlertType.CONFIRMATION,
-                "Halfrail did not close normally last time. Unsaved work on \"" + left.get().name()
-                        + "\" was kept. Restore it as an unsaved design?",
-                javafx.scene.control.ButtonType.YES, javafx.scene.control.ButtonType.NO);
-        ask.setHeaderText("Restore unsaved work?");
+                prompt.get().message(), javafx.scene.control.ButtonType.YES, javafx.scene.control.ButtonType.NO);
+        ask.setHeaderText(prompt.get().header());
+        ask.getDialogPane().setId(RECOVERY_DIALOG_ID);
         if (ask.showAndWait().filter(javafx.scene.control.ButtonType.YES::equals).isPresent()) {
-            model.openUnsaved(left.get(), "Restored the unsaved work of the last session");
+            prompt.get().accept();
         } else {
-            model.closing();
+            prompt.get().decline();
         }
     }
+
+    /** Id of the restore question's dialog pane (tests look it up). */
+    static final String RECOVERY_DIALOG_ID = "recovery-prompt";
 
     /** Preferences key of the recent-files list (one path a line). */
     static final String RECENT_KEY = "recentDesignFiles";
 
-    /** The recent files, kept in the user's preferences for this package. */
+    /**
+     * The recent files, kept in the user's preferences for this package; read again before each
+     * change, so that two app windows merge their additions instead of overwriting each other's.
+     */
     private static RecentFiles storedRecentFiles() {
         java.util.prefs.Preferences prefs = java.util.prefs.Preferences.userNodeForPackage(HalfrailApp.class);
-        List<String> stored = List.of(prefs.get(RECENT_KEY, "").split("\n"));
-        return new RecentFiles(stored, list -> prefs.put(RECENT_KEY, String.join("\n", list)));
+        return new RecentFiles(() -> {
+            try {
+                prefs.sync();
+            } catch (java.util.prefs.BackingStoreException | IllegalStateException e) {
+                // the cached list is used
+            }
+            return List.of(prefs.get(RECENT_KEY, "").split("\n"));
+        }, list -> prefs.put(RECENT_KEY, String.join("\n", list)));
     }
 
     /**
@@ -161,6 +197,14 @@ public class HalfrailApp extends Application {
         if (model != null) {
             model.monteCarlo().shutdown();
             model.closing();
+        }
+        if (instance != null) {
+            try {
+                instance.close();
+            } catch (java.io.IOException e) {
+                // the lock goes with the process anyway
+            }
+            instance = null;
         }
         if (executor != null) {
             executor.shutdown();

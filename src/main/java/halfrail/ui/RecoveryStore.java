@@ -24,15 +24,31 @@ public final class RecoveryStore {
 
     private final Path folder;
     private final DesignFileActions files;
+    private final int slot;
     private Design lastWritten;
 
     /**
+     * The recovery store of the first app running (slot 0 of {@link InstanceLock}).
+     *
      * @param folder where the recovery file lives (made when first needed)
      * @param files  how designs are written and read (the app's design files)
      */
     public RecoveryStore(Path folder, DesignFileActions files) {
+        this(folder, files, 0);
+    }
+
+    /**
+     * The recovery store of the app holding {@link InstanceLock} slot {@code slot}: slot 0 uses
+     * {@code unsaved-design.json}, slot k {@code unsaved-design-k.json}, so that two apps running
+     * side by side never write the same file.
+     */
+    public RecoveryStore(Path folder, DesignFileActions files, int slot) {
         this.folder = Objects.requireNonNull(folder, "folder");
         this.files = Objects.requireNonNull(files, "files");
+        if (slot < 0) {
+            throw new IllegalArgumentException("slot " + slot);
+        }
+        this.slot = slot;
     }
 
     /**
@@ -47,7 +63,7 @@ public final class RecoveryStore {
 
     /** The recovery file. */
     public Path file() {
-        return folder.resolve(FILE_STEM + "." + files.extension());
+        return folder.resolve(FILE_STEM + (slot == 0 ? "" : "-" + slot) + "." + files.extension());
     }
 
     /**

@@ -247,6 +247,24 @@ class DcConvergenceTest {
     }
 
     @Test
+    @DisplayName("a failed operating point says what each strategy tried and where it stopped")
+    void theFailureNamesEveryStrategyAndWhereItStopped() {
+        Circuit c = StageCircuits.supplyAndMid().nodes("hi", "lo", "out")
+                .voltageSource("VH", "hi", "0", 6)
+                .voltageSource("VL", "lo", "0", 3)
+                .opAmp("UA", "hi", "mid", "vcc", "0", "out", TestAmps.bipolarSwing())
+                .opAmp("UB", "lo", "mid", "vcc", "0", "out", TestAmps.bipolarSwing())
+                .build();
+        AnalysisException e = assertThrows(AnalysisException.class, () -> DcSolver.operatingPoint(c));
+        String m = e.getMessage();
+        for (String strategy : java.util.List.of("Newton from the linearised circuit", "limiter active-set search",
+                "gain stepping", "gmin stepping", "source stepping")) {
+            assertTrue(m.contains(strategy + ": "), strategy + " missing from: " + m);
+        }
+        assertTrue(m.contains("singular at iteration 1"), m);
+    }
+
+    @Test
     void loopOfVoltageSourcesIsSingular() {
         Circuit c = Circuit.builder().node("a")
                 .voltageSource("V1", "a", "0", 5)
@@ -269,6 +287,25 @@ class DcConvergenceTest {
         OperatingPoint op = DcSolver.operatingPoint(c);
         // limits 0 + 1.5 = 1.5 V and 2 − 1.5 = 0.5 V cross; the output rests at their mean, 1.0 V
         assertEquals(1.0, op.voltage("out"), 1e-9);
+        KclCheck.assertHolds(c, op);
+    }
+
+    @Test
+    @DisplayName("an op-amp without any output window never rests beyond its own supply pins")
+    void withoutAWindowTheOutputStaysBetweenItsSupplyPins() {
+        // 1 V supply, headrooms 20 mV and 1.5 V: the limits 0.02 V and −0.5 V cross; their mean,
+        // −0.24 V, lies below V−, where an unpowered output stage cannot drive its pin (common
+        // practice): the output rests on V−, 0 V.
+        OpAmpParams p = TestAmps.bipolarSwing().withSwing(0.02, 1.5);
+        Circuit c = Circuit.builder().nodes("vcc", "mid", "out")
+                .voltageSource("VBAT", "vcc", "0", 1)
+                .resistor("RA", "vcc", "mid", 100e3)
+                .resistor("RB", "mid", "0", 100e3)
+                .resistor("RL", "out", "mid", 10e3)
+                .opAmp("U1", "mid", "out", "vcc", "0", "out", p)
+                .build();
+        OperatingPoint op = DcSolver.operatingPoint(c);
+        assertEquals(0.0, op.opAmp("U1").orElseThrow().outputVolts(), 1e-3);
         KclCheck.assertHolds(c, op);
     }
 

@@ -36,4 +36,22 @@ class RecentFilesTest {
         RecentFiles r = new RecentFiles(List.of("/d/a.json", "", "/d/a.json", "/d/b.json"), l -> { });
         assertEquals(List.of(Path.of("/d/a.json"), Path.of("/d/b.json")), r.files());
     }
+
+    @Test
+    void twoWindowsSharingOneStoreKeepEachOthersAdditions() {
+        List<String> shared = new ArrayList<>(List.of("/d/old.json"));
+        java.util.function.Consumer<List<String>> write = l -> {
+            shared.clear();
+            shared.addAll(l);
+        };
+        RecentFiles a = new RecentFiles(() -> List.copyOf(shared), write);
+        RecentFiles b = new RecentFiles(() -> List.copyOf(shared), write);
+        a.add(Path.of("/d/a.json"));
+        b.add(Path.of("/d/b.json"));
+        assertEquals(List.of("/d/b.json", "/d/a.json", "/d/old.json"), shared, "b's write kept a's addition");
+        a.add(Path.of("/d/c.json"));
+        assertEquals(List.of("/d/c.json", "/d/b.json", "/d/a.json", "/d/old.json"), shared);
+        assertEquals(List.of(Path.of("/d/c.json"), Path.of("/d/b.json"), Path.of("/d/a.json"), Path.of("/d/old.json")),
+                a.files());
+    }
 }
