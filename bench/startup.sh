@@ -9,7 +9,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 RUNS=${RUNS:-5}
-JAR=target/halfrail.jar
+JAR=${JAR:-target/halfrail.jar}
 [ -f "$JAR" ] || { echo "no $JAR: run mvn -q -DskipTests package first" >&2; exit 2; }
 if [ -n "${DISPLAY:-}" ]; then
     CMD=(java -Dhalfrail.exitAfterFirstAnalysis=true -jar "$JAR")
