@@ -209,15 +209,15 @@ public final class WorkbenchView extends BorderPane {
         MenuItem picture = new MenuItem("Save a picture of the ladders…");
         picture.setOnAction(e -> savePicture(ladders, "ladders.png"));
         MenuItem plot = new MenuItem("Save a picture of the headroom plot…");
-        plot.setOnAction(e -> savePicture(headroomChart.content(), "headroom.png"));
+        plot.setOnAction(e -> savePicture(headroomChart, "headroom.png"));
         MenuItem mcPicture = new MenuItem("Save a picture of the Monte Carlo histograms…");
-        mcPicture.setOnAction(e -> savePicture(monteCarlo.content(), "monte-carlo.png"));
+        mcPicture.setOnAction(e -> savePicture(monteCarlo, "monte-carlo.png"));
         MenuItem powerPicture = new MenuItem("Save a picture of the power-on plot…");
-        powerPicture.setOnAction(e -> savePicture(powerOnChart.content(), "power-on.png"));
+        powerPicture.setOnAction(e -> savePicture(powerOnChart, "power-on.png"));
         MenuItem responsePicture = new MenuItem("Save a picture of the response plot…");
-        responsePicture.setOnAction(e -> savePicture(responseChart.content(), "response.png"));
+        responsePicture.setOnAction(e -> savePicture(responseChart, "response.png"));
         MenuItem tradePicture = new MenuItem("Save a picture of the battery trade-off…");
-        tradePicture.setOnAction(e -> savePicture(tradeoffChart.content(), "battery-tradeoff.png"));
+        tradePicture.setOnAction(e -> savePicture(tradeoffChart, "battery-tradeoff.png"));
         MenuItem powerCsv = new MenuItem("Export the power-on trace as CSV…");
         powerCsv.setOnAction(e -> exportCsv("the power-on trace", "power-on.csv", () -> model.plots().powerOnCsv()));
         MenuItem responseCsv = new MenuItem("Export the response curves as CSV…");
@@ -376,6 +376,16 @@ public final class WorkbenchView extends BorderPane {
             java.awt.image.BufferedImage image = javafx.embed.swing.SwingFXUtils.fromFXImage(node.snapshot(null, null), null);
             model.export("the picture", f.toPath(), p -> javax.imageio.ImageIO.write(image, "png", p.toFile()));
         }
+    }
+
+    /**
+     * Save a picture of a tab's content: the tab is shown first, so that it is built and laid out
+     * and a study that waits for its plot (the supply sweep, the trade-off) runs while the file
+     * chooser is open.
+     */
+    private void savePicture(LazyTab<?> tab, String name) {
+        bottomTabs.getSelectionModel().select(tab.tab());
+        savePicture(tab.content(), name);
     }
 
     private FileChooser chooser(String title) {
