@@ -24,6 +24,10 @@ import java.util.OptionalDouble;
  * which it still passes. The numbers come from the check layer's {@link SupplySweep} (one
  * operating point per supply voltage, the lowest passing supply refined by bisection), run through
  * the executor like every other analysis; a newer request drops an older one's result.
+ *
+ * <p>The sweep runs only while the plot is {@link #wantedProperty() wanted} (the main window binds
+ * it to the plot's tab being shown, so that the sweep does not compete with the first frame) and
+ * once per version of the design, like the divider trade-off.
  */
 public final class HeadroomSweepModel {
     /** Supply voltages swept from end-point to fresh, both included. */
@@ -68,21 +72,36 @@ public final class HeadroomSweepModel {
     private final ReadOnlyDoubleWrapper limitDb = new ReadOnlyDoubleWrapper(this, "limitDb");
     private final ReadOnlyDoubleWrapper nominalVolts = new ReadOnlyDoubleWrapper(this, "nominalVolts");
     private final ReadOnlyBooleanWrapper running = new ReadOnlyBooleanWrapper(this, "running");
+    private final javafx.beans.property.BooleanProperty wanted = new javafx.beans.property.SimpleBooleanProperty(this, "wanted");
     private long generation;
     private AnalysisExecutor.Job job;
+    /** The design of the latest request, swept or waiting for the plot to be wanted. */
+    private Design pending;
+    private Design sweptFor;
 
     HeadroomSweepModel(AnalysisExecutor executor) {
         this.executor = executor;
+        wanted.addListener((o, was, now) -> maybeRun());
     }
 
     void request(Design d) {
+        pending = d;
+        limitDb.set(d.thresholds().minHeadroomDb());
+        nominalVolts.set(d.supply().nominalVolts());
+        maybeRun();
+    }
+
+    private void maybeRun() {
+        if (!wanted.get() || pending == null || pending.equals(sweptFor)) {
+            return;
+        }
+        Design d = pending;
+        sweptFor = d;
         if (job != null) {
             job.cancel();
         }
         long mine = ++generation;
         running.set(true);
-        limitDb.set(d.thresholds().minHeadroomDb());
-        nominalVolts.set(d.supply().nominalVolts());
         job = executor.submit(() -> sweep(d), result -> {
             if (mine == generation) {
                 job = null;
@@ -132,6 +151,11 @@ public final class HeadroomSweepModel {
     /** The design's nominal supply, V. */
     public ReadOnlyDoubleProperty nominalVoltsProperty() {
         return nominalVolts.getReadOnlyProperty();
+    }
+
+    /** Whether the plot is wanted (shown): the sweep waits until it is. */
+    public javafx.beans.property.BooleanProperty wantedProperty() {
+        return wanted;
     }
 
     public ReadOnlyBooleanProperty runningProperty() {

@@ -36,12 +36,13 @@ public final class WorkbenchView extends BorderPane {
     private final ReadingsPanel readings;
     private final SupplyTrialBar trial;
     private final ChainCanvas chain;
-    private final SchematicCanvas schematic;
-    private final HeadroomChart headroomChart;
-    private final MonteCarloPanel monteCarlo;
-    private final DividerTradeoffChart tradeoffChart;
-    private final PowerOnChart powerOnChart;
-    private final ResponseChart responseChart;
+    // the tabs under the ladders other than the readings are built when first shown (start-up time)
+    private final LazyTab<SchematicCanvas> schematic;
+    private final LazyTab<HeadroomChart> headroomChart;
+    private final LazyTab<MonteCarloPanel> monteCarlo;
+    private final LazyTab<DividerTradeoffChart> tradeoffChart;
+    private final LazyTab<PowerOnChart> powerOnChart;
+    private final LazyTab<ResponseChart> responseChart;
     private final javafx.scene.control.TabPane bottomTabs;
     private final SplitPane middle;
     private final Label status = new Label();
@@ -68,28 +69,22 @@ public final class WorkbenchView extends BorderPane {
         HBox numbers = new HBox(8, readings.stagesBox(), readings.figuresBox());
         HBox.setHgrow(readings.stagesBox(), Priority.ALWAYS);
         numbers.setPadding(new Insets(4));
-        headroomChart = new HeadroomChart(model.headroom());
         javafx.scene.control.Tab readingsTab = new javafx.scene.control.Tab("Readings", numbers);
-        javafx.scene.control.Tab plotTab = new javafx.scene.control.Tab("Headroom against supply", headroomChart);
-        plotTab.setId("headroom-tab");
-        monteCarlo = new MonteCarloPanel(model.monteCarlo(), palette);
-        javafx.scene.control.Tab mcTab = new javafx.scene.control.Tab("Monte Carlo", monteCarlo);
-        mcTab.setId("monte-carlo-tab");
-        powerOnChart = new PowerOnChart(model.plots());
-        javafx.scene.control.Tab powerTab = new javafx.scene.control.Tab("Power-on", powerOnChart);
-        powerTab.setId("power-on-tab");
-        responseChart = new ResponseChart(model.plots());
-        javafx.scene.control.Tab responseTab = new javafx.scene.control.Tab("Low-frequency response", responseChart);
-        responseTab.setId("response-tab");
-        tradeoffChart = new DividerTradeoffChart(model.tradeoff());
-        javafx.scene.control.Tab tradeTab = new javafx.scene.control.Tab("Battery trade-off", tradeoffChart);
-        tradeTab.setId("tradeoff-tab");
-        model.tradeoff().wantedProperty().bind(tradeTab.selectedProperty());
-        schematic = new SchematicCanvas(model.schematic());
-        schematic.paletteProperty().bind(palette);
-        javafx.scene.control.Tab circuitTab = new javafx.scene.control.Tab("Circuit", schematic);
-        circuitTab.setId("circuit-tab");
-        bottomTabs = new javafx.scene.control.TabPane(readingsTab, plotTab, powerTab, responseTab, tradeTab, mcTab, circuitTab);
+        headroomChart = new LazyTab<>("Headroom against supply", "headroom-tab", () -> new HeadroomChart(model.headroom()));
+        powerOnChart = new LazyTab<>("Power-on", "power-on-tab", () -> new PowerOnChart(model.plots()));
+        responseChart = new LazyTab<>("Low-frequency response", "response-tab", () -> new ResponseChart(model.plots()));
+        tradeoffChart = new LazyTab<>("Battery trade-off", "tradeoff-tab", () -> new DividerTradeoffChart(model.tradeoff()));
+        // the supply sweep and the trade-off study run once their plots are shown, not before the first frame
+        model.headroom().wantedProperty().bind(headroomChart.tab().selectedProperty());
+        model.tradeoff().wantedProperty().bind(tradeoffChart.tab().selectedProperty());
+        monteCarlo = new LazyTab<>("Monte Carlo", "monte-carlo-tab", () -> new MonteCarloPanel(model.monteCarlo(), palette));
+        schematic = new LazyTab<>("Circuit", "circuit-tab", () -> {
+            SchematicCanvas c = new SchematicCanvas(model.schematic());
+            c.paletteProperty().bind(palette);
+            return c;
+        });
+        bottomTabs = new javafx.scene.control.TabPane(readingsTab, headroomChart.tab(), powerOnChart.tab(),
+                responseChart.tab(), tradeoffChart.tab(), monteCarlo.tab(), schematic.tab());
         bottomTabs.setTabClosingPolicy(javafx.scene.control.TabPane.TabClosingPolicy.UNAVAILABLE);
         middle = new SplitPane(centre, bottomTabs);
         middle.setOrientation(Orientation.VERTICAL);
@@ -383,6 +378,16 @@ public final class WorkbenchView extends BorderPane {
         }
     }
 
+    /**
+     * Save a picture of a tab's content: the tab is shown first, so that it is built and laid out
+     * and a study that waits for its plot (the supply sweep, the trade-off) runs while the file
+     * chooser is open.
+     */
+    private void savePicture(LazyTab<?> tab, String name) {
+        bottomTabs.getSelectionModel().select(tab.tab());
+        savePicture(tab.content(), name);
+    }
+
     private FileChooser chooser(String title) {
         FileChooser c = new FileChooser();
         c.setTitle(title);
@@ -416,7 +421,7 @@ public final class WorkbenchView extends BorderPane {
     }
 
     public HeadroomChart headroomChart() {
-        return headroomChart;
+        return headroomChart.content();
     }
 
     /** The split between the ladders (top) and the tabs of readings and plots (bottom). */
@@ -430,24 +435,37 @@ public final class WorkbenchView extends BorderPane {
     }
 
     public DividerTradeoffChart tradeoffChart() {
-        return tradeoffChart;
+        return tradeoffChart.content();
     }
 
     public PowerOnChart powerOnChart() {
-        return powerOnChart;
+        return powerOnChart.content();
     }
 
     public ResponseChart responseChart() {
-        return responseChart;
+        return responseChart.content();
     }
 
     public MonteCarloPanel monteCarlo() {
-        return monteCarlo;
+        return monteCarlo.content();
     }
 
     /** The circuit drawing (in the last tab). */
     public SchematicCanvas schematic() {
-        return schematic;
+        return schematic.content();
+    }
+
+    /**
+     * Whether the content of the tab with {@code tabId} under the ladders has been built: the
+     * readings always are, the others once first shown (or asked for through their accessor).
+     */
+    public boolean tabBuilt(String tabId) {
+        for (LazyTab<?> t : java.util.List.of(headroomChart, powerOnChart, responseChart, tradeoffChart, monteCarlo, schematic)) {
+            if (t.tab().getId().equals(tabId)) {
+                return t.isBuilt();
+            }
+        }
+        return bottomTabs.getTabs().stream().anyMatch(t -> tabId.equals(t.getId()) && t.getContent() != null);
     }
 
     public ChainCanvas chain() {

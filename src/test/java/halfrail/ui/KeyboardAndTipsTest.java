@@ -81,7 +81,14 @@ class KeyboardAndTipsTest {
     }
 
     @Test
-    void everyAxisOfThePlotsSaysWhatItMeasures() {
+    void everyAxisOfThePlotsSaysWhatItMeasures(FxRobot robot) {
+        // the plots' tabs are built when first shown or asked for; into the shown window, so on the FX thread
+        robot.interact(() -> {
+            view.headroomChart();
+            view.powerOnChart();
+            view.responseChart();
+            view.tradeoffChart();
+        });
         List<javafx.scene.chart.Axis<?>> axes = new ArrayList<>();
         axes.add(view.headroomChart().getXAxis());
         axes.add(view.headroomChart().getYAxis());

@@ -77,6 +77,24 @@ class StudyPlotsTest {
     }
 
     @Test
+    void theSupplySweepRunsOnlyWhileItsPlotIsWantedAndThenOnTheLatestDesign() {
+        HeadroomSweepModel h = model.headroom();
+        assertTrue(h.curves().isEmpty(), "nothing swept while the plot is not shown");
+        assertEquals(3.0, h.limitDbProperty().get(), 1e-12, "the limit line is known without the sweep");
+        model.edit("R2", d -> d.withStage(0, d.stages().get(0).withFeedbackOhms(68e3)));
+        assertTrue(h.curves().isEmpty(), "an edit while hidden sweeps nothing either");
+        h.wantedProperty().set(true);
+        assertEquals(1, h.curves().size(), "one signal op-amp");
+        // swept on the edited design: gain 1 + 68k/3.9k ≈ 18.4 (non-inverting gain rule), 1.84 V peak, too much for a run-down block
+        assertEquals(halfrail.check.LowestPassingSupply.Verdict.FAILS_BELOW, h.curves().get(0).lowest().verdict(),
+                h.curves().get(0).lowestInWords());
+        var swept = h.curves().get(0);
+        h.wantedProperty().set(false);
+        h.wantedProperty().set(true);
+        assertTrue(swept == h.curves().get(0), "the same design is not swept twice");
+    }
+
+    @Test
     void axisLabelsUseEngineeringPrefixes() {
         assertEquals("4.7 µA", DecadeAxis.engineering(4.7e-6, "A"));
         assertEquals("100 kΩ", DecadeAxis.engineering(100e3, "Ω"));

@@ -119,6 +119,7 @@ class WorkbenchModelTest {
     void aStaleAnalysisIsCancelledAndItsResultDropped() {
         HeldExecutor held = new HeldExecutor();
         WorkbenchModel m = new WorkbenchModel(held, SampleDesigns.instrumentBoost(), Optional.empty());
+        m.headroom().wantedProperty().set(true); // the headroom plot is shown: its sweep is job 1
         EditorPanelModel.TextEntry r2 = (EditorPanelModel.TextEntry) m.editor().field("stages[0].feedbackOhms").orElseThrow();
         r2.textProperty().set("47k");
         r2.commit();
@@ -248,6 +249,7 @@ class WorkbenchModelTest {
         // a held executor lets the test hand the model a failure, as a check-layer refusal would arrive
         HeldExecutor held = new HeldExecutor();
         WorkbenchModel m = new WorkbenchModel(held, SampleDesigns.instrumentBoost(), Optional.empty());
+        m.headroom().wantedProperty().set(true); // the headroom plot is shown: its sweep is job 1
         held.jobs.get(0).finish();
         assertEquals(1, m.ladders().rungs().size());
         EditorPanelModel.TextEntry r1 = (EditorPanelModel.TextEntry) m.editor().field("stages[0].legOhms").orElseThrow();
@@ -280,6 +282,7 @@ class WorkbenchModelTest {
 
     @Test
     void headroomShrinksAsTheBatteryRunsDown() {
+        model.headroom().wantedProperty().set(true); // the plot is shown
         HeadroomSweepModel.Curve c = model.headroom().curves().get(0);
         assertEquals("boost", c.opAmp());
         assertEquals(HeadroomSweepModel.SWEEP_POINTS, c.points().size());
@@ -295,6 +298,7 @@ class WorkbenchModelTest {
 
     @Test
     void theHeadroomPlotMarksTheLowestPassingSupplyWhereTheHeadroomMeetsTheLimit() {
+        model.headroom().wantedProperty().set(true); // the plot is shown
         // a 68k feedback resistor (gain 1 + 68/3.9 ≈ 18.4: 1.84 V peak from 100 mV) fits a fresh block but not a run-down one
         model.edit("R2", d -> d.withStage(0, d.stages().get(0).withFeedbackOhms(68e3)));
         HeadroomSweepModel.Curve c = model.headroom().curves().get(0);
