@@ -211,15 +211,20 @@ public final class PowerOnTransient {
         boolean[] on = new boolean[times.length];
         boolean any = false;
         Optional<Double> lastOn = Optional.empty();
+        // The node indices once, not a name look-up per point (−1 is ground).
+        int vNeg = system.nodeIndex(o.vNeg());
+        int vPos = system.nodeIndex(o.vPos());
+        int outNode = system.nodeIndex(o.out());
+        int number = system.opAmpNumber(o.name());
         for (int i = 0; i < times.length; i++) {
             double[] x = xs[i];
-            double lo = system.voltage(x, o.vNeg()) + p.swingLowVolts();
-            double hi = system.voltage(x, o.vPos()) - p.swingHighVolts();
+            double lo = (vNeg < 0 ? 0 : x[vNeg]) + p.swingLowVolts();
+            double hi = (vPos < 0 ? 0 : x[vPos]) - p.swingHighVolts();
             if (hi - lo < MIN_WINDOW_VOLTS) {
                 continue;
             }
-            double out = system.voltage(x, o.out());
-            on[i] = system.saturated(x, o.name()) || out >= hi - RAIL_MARGIN_VOLTS || out <= lo + RAIL_MARGIN_VOLTS;
+            double out = outNode < 0 ? 0 : x[outNode];
+            on[i] = out >= hi - RAIL_MARGIN_VOLTS || out <= lo + RAIL_MARGIN_VOLTS || system.saturated(x, number);
             if (on[i]) {
                 any = true;
                 lastOn = Optional.of(times[i]);

@@ -76,6 +76,15 @@ final class TransientStepper {
     static final double REUSE_FINAL_REMAINDER = 1e-9;
     /** Jacobian reuse policy, part 3: iterations on reused factors after which they are made afresh. */
     static final int REUSE_MAX_ITERATIONS = 3;
+    /**
+     * Jacobian reuse policy, part 5: when a step that began on reused factors had to make them
+     * afresh all the same, the next steps begin on fresh factors (the stale iterations before the
+     * refresh are wasted work): one step after the first such failure, twice as many after each
+     * further one in a row, at most this many; a step that converges on reused factors alone
+     * ends the back-off. Near an op-amp's limiter knee, where the Jacobian changes from step to
+     * step, nearly every step refactors anyway, and this saves one or two iterations per step.
+     */
+    static final int REUSE_BACKOFF_MAX_STEPS = 16;
     /** Newest points kept in the history: the highest-order method's past points plus its error estimate. */
     private static final int HISTORY = 4;
 
@@ -117,12 +126,17 @@ final class TransientStepper {
     private final double[] gValues;
     private final double[] cValues;
     private final double[] rowScale;
+    /** Kept pattern positions of the sparse assembly's writes (see {@link MnaSystem.SlotSequence}). */
+    private final MnaSystem.SlotSequence slots;
     /** Whether {@link #lu} holds factors of an iteration matrix of this run. */
     private boolean factorsValid;
     /** α0/h of the factored iteration matrix, 1/s. */
     private double factoredCoefficient;
     /** Whether the next Newton iteration must factor the iteration matrix afresh. */
     private boolean refreshJacobian = true;
+    /** Steps left that begin on fresh factors (reuse policy part 5), and the length of the last such run. */
+    private int freshStarts;
+    private int freshRun;
     private int factorizations;
 
     // History since the last restart, newest first.
@@ -149,6 +163,7 @@ final class TransientStepper {
         this.pattern = sparse != null ? system.pattern() : null;
         this.gValues = sparse != null ? new double[pattern.entries()] : null;
         this.cValues = sparse != null ? new double[pattern.entries()] : null;
+        this.slots = sparse != null ? new MnaSystem.SlotSequence(pattern) : null;
         this.g = sparse != null ? null : new double[n][n];
         this.c = sparse != null ? null : new double[n][n];
         this.r = new double[n];
@@ -177,6 +192,8 @@ final class TransientStepper {
         factorizations = 0;
         factorsValid = false;
         refreshJacobian = true;
+        freshStarts = 0;
+        freshRun = 0;
         int rejectedByError = 0;
         int rejectedByNewton = 0;
 
@@ -377,7 +394,14 @@ final class TransientStepper {
         if (!factorsValid || Math.abs(a0h / factoredCoefficient - 1) > REUSE_COEFFICIENT_CHANGE) {
             refreshJacobian = true;
         }
+        if (freshStarts > 0) {
+            freshStarts--;
+            refreshJacobian = true;
+        }
+        // Whether this step tries the kept factors first, for part 5 of the policy.
+        boolean beganStale = !refreshJacobian;
         int staleIterations = 0;
+        int factorizationsAtStart = factorizations;
         double previous = Double.NaN;
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             newtonIterations++;
@@ -386,7 +410,7 @@ final class TransientStepper {
                 system.evaluate(x, t, Mode.DYNAMIC, 1, 0, f, refresh ? g : null, q, refresh ? c : null);
             }
             if (refresh && sparse != null) {
-                system.evaluateSparse(x, t, f, gValues, q, cValues);
+                system.evaluateSparse(x, t, f, gValues, q, cValues, slots);
                 int[] rowStart = pattern.rowStart;
                 for (int i = 0; i < n; i++) {
                     double scale = 0;
@@ -491,6 +515,14 @@ final class TransientStepper {
             // Converged: the update is below the tolerance and, unless the factors were made at
             // this very iterate, the measured contraction shows they still describe the system.
             if (damp == 1 && ratio <= 1 && (refresh || rate * ratio <= REUSE_FINAL_REMAINDER)) {
+                if (beganStale) {
+                    if (factorizations == factorizationsAtStart) {
+                        freshRun = 0;
+                    } else {
+                        freshRun = Math.min(REUSE_BACKOFF_MAX_STEPS, Math.max(1, 2 * freshRun));
+                        freshStarts = freshRun;
+                    }
+                }
                 return true;
             }
             if (!refresh && (rate > REUSE_MAX_RATE || staleIterations >= REUSE_MAX_ITERATIONS)) {
