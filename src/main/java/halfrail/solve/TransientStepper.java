@@ -125,7 +125,7 @@ final class TransientStepper {
     private final double[] hist;
     private final double[] alpha = new double[HISTORY];
     private final double[] steps = new double[HISTORY];
-    private final double[] divided = new double[HISTORY + 1];
+    private final double[] differenceWeights = new double[HISTORY + 1];
     private final double[] tt = new double[HISTORY + 1];
     private final LinearSolver lu;
     /** The solver when it is sparse: then G and C are assembled as values of {@link #pattern}, not dense. */
@@ -553,21 +553,27 @@ final class TransientStepper {
         for (int j = 1; j < p; j++) {
             tt[j] = histT[j - 1];
         }
+        // The divided difference of order p−1 is Σ x_j / Π_{l≠j} (t_j − t_l): weights once per
+        // step, then p multiply-adds per unknown.
+        for (int j = 0; j < p; j++) {
+            double d = 1;
+            for (int l = 0; l < p; l++) {
+                if (l != j) {
+                    d *= tt[j] - tt[l];
+                }
+            }
+            differenceWeights[j] = 1 / d;
+        }
         double worst = 0;
         for (int i = 0; i < n; i++) {
             if (!controlled[i]) {
                 continue;
             }
-            divided[0] = x[i];
+            double sum = differenceWeights[0] * x[i];
             for (int j = 1; j < p; j++) {
-                divided[j] = histX[j - 1][i];
+                sum += differenceWeights[j] * histX[j - 1][i];
             }
-            for (int level = 1; level < p; level++) {
-                for (int j = 0; j < p - level; j++) {
-                    divided[j] = (divided[j] - divided[j + 1]) / (tt[j] - tt[j + level]);
-                }
-            }
-            double lte = e * Math.abs(divided[0]);
+            double lte = e * Math.abs(sum);
             double tol = s.relativeTolerance() * Math.max(Math.abs(x[i]), Math.abs(histX[0][i]))
                     + s.voltageToleranceVolts();
             worst = Math.max(worst, lte / tol);
