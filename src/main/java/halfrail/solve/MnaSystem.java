@@ -453,14 +453,79 @@ public final class MnaSystem {
      * values of {@link #pattern()} (cleared first) instead of dense matrices.
      */
     void evaluateSparse(double[] x, double t, double[] f, double[] gValues, double[] q, double[] cValues) {
+        evaluateSparse(x, t, f, gValues, q, cValues, null);
+    }
+
+    /**
+     * As {@link #evaluateSparse(double[], double, double[], double[], double[], double[])}, the
+     * positions of the entries taken from {@code slots} where it has them (a caller that
+     * evaluates the same system many times keeps one; not thread-safe, one per caller).
+     */
+    void evaluateSparse(double[] x, double t, double[] f, double[] gValues, double[] q, double[] cValues,
+                        SlotSequence slots) {
         Pattern p = pattern();
         java.util.Arrays.fill(f, 0, size, 0);
         java.util.Arrays.fill(q, 0, size, 0);
         java.util.Arrays.fill(gValues, 0, p.entries(), 0);
         java.util.Arrays.fill(cValues, 0, p.entries(), 0);
         Stamp s = new Stamp(x, f, null, q, null, true, 1, p, gValues, cValues, null, size);
+        s.slots = slots != null && slots.pattern == p ? slots : null;
         for (Device d : devices) {
             d.load(s, t, Mode.DYNAMIC, 1);
+        }
+    }
+
+    /**
+     * The pattern positions of the G and C entries in the order the devices write them, kept
+     * from one sparse evaluation to the next: the devices write the same entries in the same
+     * order at every evaluation, so the binary search of {@link Pattern#slot} is made once per
+     * write and then only checked against the kept (row, column) key. A write that differs from
+     * the kept one is searched and kept in its place, so a changed order costs time, never a
+     * wrong position.
+     */
+    static final class SlotSequence {
+        final Pattern pattern;
+        private long[] gKeys = new long[64];
+        private int[] gSlots = new int[64];
+        private int gCount;
+        private long[] cKeys = new long[64];
+        private int[] cSlots = new int[64];
+        private int cCount;
+
+        SlotSequence(Pattern pattern) {
+            this.pattern = pattern;
+        }
+
+        int g(int k, int row, int col) {
+            long key = (long) row * pattern.size + col;
+            if (k < gCount && gKeys[k] == key) {
+                return gSlots[k];
+            }
+            int slot = pattern.slot(row, col);
+            if (k >= gKeys.length) {
+                gKeys = java.util.Arrays.copyOf(gKeys, 2 * k);
+                gSlots = java.util.Arrays.copyOf(gSlots, 2 * k);
+            }
+            gKeys[k] = key;
+            gSlots[k] = slot;
+            gCount = Math.max(gCount, k + 1);
+            return slot;
+        }
+
+        int c(int k, int row, int col) {
+            long key = (long) row * pattern.size + col;
+            if (k < cCount && cKeys[k] == key) {
+                return cSlots[k];
+            }
+            int slot = pattern.slot(row, col);
+            if (k >= cKeys.length) {
+                cKeys = java.util.Arrays.copyOf(cKeys, 2 * k);
+                cSlots = java.util.Arrays.copyOf(cSlots, 2 * k);
+            }
+            cKeys[k] = key;
+            cSlots[k] = slot;
+            cCount = Math.max(cCount, k + 1);
+            return slot;
         }
     }
 
@@ -495,10 +560,20 @@ public final class MnaSystem {
      * that is whether the part has left its linear region.
      */
     public boolean saturated(double[] x, String name) {
+        return opAmps[opAmpNumber(name)].saturated(x);
+    }
+
+    /** Position of op-amp {@code name} in circuit order. @throws AnalysisException BAD_REQUEST for an unknown op-amp */
+    int opAmpNumber(String name) {
         Integer j = opAmpByName.get(name);
         if (j == null) {
             throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST, "no op-amp named " + name);
         }
+        return j;
+    }
+
+    /** As {@link #saturated(double[], String)} for op-amp number {@code j} in circuit order. */
+    boolean saturated(double[] x, int j) {
         return opAmps[j].saturated(x);
     }
 
@@ -616,6 +691,10 @@ public final class MnaSystem {
         /** When not null, the stamp only records the positions it would write (row·size + column). */
         final Positions record;
         final int size;
+        /** Kept positions of the sparse writes, or null; with the count of G and C writes so far. */
+        SlotSequence slots;
+        int gWrites;
+        int cWrites;
 
         Stamp(double[] x, double[] f, double[][] g, double[] q, double[][] c, boolean limit, double gainScale) {
             this(x, f, g, q, c, limit, gainScale, null, null, null, null, 0);
@@ -641,7 +720,7 @@ public final class MnaSystem {
             if (c != null) {
                 c[row][col] += value;
             } else if (cs != null) {
-                cs[pattern.slot(row, col)] += value;
+                cs[slots != null ? slots.c(cWrites++, row, col) : pattern.slot(row, col)] += value;
             } else if (record != null) {
                 record.add((long) row * size + col);
             }
@@ -662,7 +741,7 @@ public final class MnaSystem {
                 if (g != null) {
                     g[row][col] += value;
                 } else if (gs != null) {
-                    gs[pattern.slot(row, col)] += value;
+                    gs[slots != null ? slots.g(gWrites++, row, col) : pattern.slot(row, col)] += value;
                 } else if (record != null) {
                     record.add((long) row * size + col);
                 }

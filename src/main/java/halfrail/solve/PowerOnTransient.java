@@ -209,26 +209,30 @@ public final class PowerOnTransient {
     private static PowerOnResult.RailTime railTime(MnaSystem system, OpAmp o, double[] times, double[][] xs) {
         OpAmpParams p = o.params();
         boolean[] on = new boolean[times.length];
-        boolean any = false;
-        Optional<Double> lastOn = Optional.empty();
+        int lastOn = -1;
+        // The node indices once, not a name look-up per point (−1 is ground).
+        int vNeg = system.nodeIndex(o.vNeg());
+        int vPos = system.nodeIndex(o.vPos());
+        int outNode = system.nodeIndex(o.out());
+        int number = system.opAmpNumber(o.name());
         for (int i = 0; i < times.length; i++) {
             double[] x = xs[i];
-            double lo = system.voltage(x, o.vNeg()) + p.swingLowVolts();
-            double hi = system.voltage(x, o.vPos()) - p.swingHighVolts();
+            double lo = (vNeg < 0 ? 0 : x[vNeg]) + p.swingLowVolts();
+            double hi = (vPos < 0 ? 0 : x[vPos]) - p.swingHighVolts();
             if (hi - lo < MIN_WINDOW_VOLTS) {
                 continue;
             }
-            double out = system.voltage(x, o.out());
-            on[i] = system.saturated(x, o.name()) || out >= hi - RAIL_MARGIN_VOLTS || out <= lo + RAIL_MARGIN_VOLTS;
+            double out = outNode < 0 ? 0 : x[outNode];
+            on[i] = out >= hi - RAIL_MARGIN_VOLTS || out <= lo + RAIL_MARGIN_VOLTS || system.saturated(x, number);
             if (on[i]) {
-                any = true;
-                lastOn = Optional.of(times[i]);
+                lastOn = i;
             }
         }
         double seconds = 0;
         for (int i = 1; i < times.length; i++) {
             seconds += 0.5 * ((on[i - 1] ? 1 : 0) + (on[i] ? 1 : 0)) * (times[i] - times[i - 1]);
         }
-        return new PowerOnResult.RailTime(o.name(), any, seconds, lastOn);
+        return new PowerOnResult.RailTime(o.name(), lastOn >= 0, seconds,
+                lastOn >= 0 ? Optional.of(times[lastOn]) : Optional.empty());
     }
 }
