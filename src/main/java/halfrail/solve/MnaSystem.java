@@ -344,9 +344,9 @@ public final class MnaSystem {
         private volatile int[] fillOrder;
 
         /**
-         * A fill-reducing column order of this pattern (minimum degree on A + Aᵀ, as
-         * {@link SparseLu} makes it), made once and shared by every solver factoring a matrix of
-         * this pattern. The caller must not change the array.
+         * A fill-reducing column order of this pattern (minimum degree on A + Aᵀ,
+         * {@link SparseLuSymbolic#minimumDegree}), made once and shared by every solver factoring
+         * a matrix of this pattern. The caller must not change the array.
          */
         int[] fillOrder() {
             int[] o = fillOrder;
@@ -359,7 +359,7 @@ public final class MnaSystem {
                         bits[i * words + (j >>> 6)] |= 1L << (j & 63);
                     }
                 }
-                o = SparseLu.minimumDegree(bits, size, words);
+                o = SparseLuSymbolic.minimumDegree(bits, size, words);
                 fillOrder = o;
             }
             return o;
