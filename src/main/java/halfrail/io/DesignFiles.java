@@ -137,7 +137,7 @@ public final class DesignFiles {
      *                             missing or read-only, or the disk refuses the write
      */
     public static void save(Design design, Path file) {
-        AtomicFiles.replace(file, write(design).getBytes(StandardCharsets.UTF_8), AtomicFiles.WHOLE);
+        AtomicFiles.replace(file, write(design).getBytes(StandardCharsets.UTF_8), AtomicWrite.WHOLE);
     }
 
     /** The path of the backup kept by {@link #save} for {@code file}. */

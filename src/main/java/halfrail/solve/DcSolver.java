@@ -142,6 +142,10 @@ public final class DcSolver {
     private static final int ROW_UNLIMITED = 1;
     private static final int ROW_CLAMP_HIGH = 2;
     private static final int ROW_CLAMP_LOW = 3;
+    /** What {@link #applyStep} returns when every unknown moved within its tolerance. */
+    private static final int STEP_WITHIN_TOLERANCE = -1;
+    /** What {@link #applyStep} returns when an entry of the step is not finite. */
+    private static final int NON_FINITE_STEP = -2;
 
     private final MnaSystem system;
     private final int n;
@@ -515,21 +519,12 @@ public final class DcSolver {
                 newtonStall = "the circuit with the modes held was singular at iteration " + (it + 1);
                 return false;
             }
-            boolean converged = true;
-            for (int i = 0; i < n; i++) {
-                if (!Double.isFinite(dx[i])) {
-                    newtonStall = "a non-finite step at iteration " + (it + 1);
-                    return false;
-                }
-                double next = x[i] + dx[i];
-                double tol = RELATIVE_TOLERANCE * Math.max(Math.abs(x[i]), Math.abs(next))
-                        + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
-                if (Math.abs(dx[i]) > tol) {
-                    converged = false;
-                }
-                x[i] = next;
+            int worst = applyStep(x);
+            if (worst == NON_FINITE_STEP) {
+                newtonStall = "a non-finite step at iteration " + (it + 1);
+                return false;
             }
-            if (converged) {
+            if (worst == STEP_WITHIN_TOLERANCE) {
                 return true;
             }
         }
@@ -754,8 +749,7 @@ public final class DcSolver {
 
     /** Newton at one source scale and gmin; updates x in place; true when converged. */
     private boolean newton(double[] x, double scale, double gmin) {
-        int worst = -1;
-        double worstMove = 0;
+        int worst = STEP_WITHIN_TOLERANCE;
         for (int it = 0; it < MAX_NEWTON_ITERATIONS; it++) {
             iterations++;
             boolean anyUnlimited = chooseRows(x, scale);
@@ -773,26 +767,12 @@ public final class DcSolver {
             // An iteration that used an unlimited state row solved other equations than the
             // circuit's: it may not end the loop, however small its step.
             boolean converged = residualOk && !anyUnlimitedRow();
-            worst = -1;
-            worstMove = 0;
-            for (int i = 0; i < n; i++) {
-                if (!Double.isFinite(dx[i])) {
-                    newtonStall = "a non-finite step at iteration " + (it + 1);
-                    return false;
-                }
-                double next = x[i] + dx[i];
-                double tol = RELATIVE_TOLERANCE * Math.max(Math.abs(x[i]), Math.abs(next))
-                        + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
-                if (Math.abs(dx[i]) > tol) {
-                    converged = false;
-                    if (Math.abs(dx[i]) > worstMove) {
-                        worstMove = Math.abs(dx[i]);
-                        worst = i;
-                    }
-                }
-                x[i] = next;
+            worst = applyStep(x);
+            if (worst == NON_FINITE_STEP) {
+                newtonStall = "a non-finite step at iteration " + (it + 1);
+                return false;
             }
-            if (converged) {
+            if (converged && worst == STEP_WITHIN_TOLERANCE) {
                 // The factors are those of the true Jacobian at the previous iterate, which the
                 // converged step moved by less than the tolerance: the stability check reuses them.
                 jacobianAtX = scale == 1 && gmin == 0 && gainScale == 1;
@@ -801,9 +781,36 @@ public final class DcSolver {
         }
         newtonStall = MAX_NEWTON_ITERATIONS + " iterations, "
                 + (worst < 0 ? "the steps small but the equations not met"
-                : system.unknownName(worst) + " still moving by " + g3(worstMove) + (isVoltage(worst) ? " V" : " A")
-                + " a step");
+                : system.unknownName(worst) + " still moving by " + g3(Math.abs(dx[worst]))
+                + (isVoltage(worst) ? " V" : " A") + " a step");
         return false;
+    }
+
+    /**
+     * The Newton update shared by {@link #newton} and {@link #heldModeNewton}: x += {@link #dx},
+     * each unknown's move measured against {@link #RELATIVE_TOLERANCE} of its size plus
+     * {@link #VOLTAGE_TOLERANCE} or {@link #CURRENT_TOLERANCE}. Returns
+     * {@link #STEP_WITHIN_TOLERANCE}, the unknown that moved most beyond its tolerance, or
+     * {@link #NON_FINITE_STEP} (x then updated only up to the bad entry).
+     */
+    private int applyStep(double[] x) {
+        int worst = STEP_WITHIN_TOLERANCE;
+        double worstMove = 0;
+        for (int i = 0; i < n; i++) {
+            if (!Double.isFinite(dx[i])) {
+                return NON_FINITE_STEP;
+            }
+            double move = Math.abs(dx[i]);
+            double next = x[i] + dx[i];
+            double tol = RELATIVE_TOLERANCE * Math.max(Math.abs(x[i]), Math.abs(next))
+                    + (isVoltage(i) ? VOLTAGE_TOLERANCE : CURRENT_TOLERANCE);
+            if (move > tol && move > worstMove) {
+                worstMove = move;
+                worst = i;
+            }
+            x[i] = next;
+        }
+        return worst;
     }
 
     private boolean anyUnlimitedRow() {

@@ -344,9 +344,9 @@ public final class MnaSystem {
         private volatile int[] fillOrder;
 
         /**
-         * A fill-reducing column order of this pattern (minimum degree on A + Aᵀ, as
-         * {@link SparseLu} makes it), made once and shared by every solver factoring a matrix of
-         * this pattern. The caller must not change the array.
+         * A fill-reducing column order of this pattern (minimum degree on A + Aᵀ,
+         * {@link SparseLuSymbolic#minimumDegree}), made once and shared by every solver factoring
+         * a matrix of this pattern. The caller must not change the array.
          */
         int[] fillOrder() {
             int[] o = fillOrder;
@@ -359,7 +359,7 @@ public final class MnaSystem {
                         bits[i * words + (j >>> 6)] |= 1L << (j & 63);
                     }
                 }
-                o = SparseLu.minimumDegree(bits, size, words);
+                o = SparseLuSymbolic.minimumDegree(bits, size, words);
                 fillOrder = o;
             }
             return o;
@@ -485,47 +485,44 @@ public final class MnaSystem {
      */
     static final class SlotSequence {
         final Pattern pattern;
-        private long[] gKeys = new long[64];
-        private int[] gSlots = new int[64];
-        private int gCount;
-        private long[] cKeys = new long[64];
-        private int[] cSlots = new int[64];
-        private int cCount;
+        private final Track g = new Track();
+        private final Track c = new Track();
 
         SlotSequence(Pattern pattern) {
             this.pattern = pattern;
         }
 
+        /** Pattern position of the k-th G write of an evaluation, at (row, col). */
         int g(int k, int row, int col) {
-            long key = (long) row * pattern.size + col;
-            if (k < gCount && gKeys[k] == key) {
-                return gSlots[k];
-            }
-            int slot = pattern.slot(row, col);
-            if (k >= gKeys.length) {
-                gKeys = java.util.Arrays.copyOf(gKeys, 2 * k);
-                gSlots = java.util.Arrays.copyOf(gSlots, 2 * k);
-            }
-            gKeys[k] = key;
-            gSlots[k] = slot;
-            gCount = Math.max(gCount, k + 1);
-            return slot;
+            return g.slot(pattern, k, row, col);
         }
 
+        /** Pattern position of the k-th C write of an evaluation, at (row, col). */
         int c(int k, int row, int col) {
-            long key = (long) row * pattern.size + col;
-            if (k < cCount && cKeys[k] == key) {
-                return cSlots[k];
+            return c.slot(pattern, k, row, col);
+        }
+
+        /** The kept (row, column) keys and positions of one matrix's writes, in write order. */
+        private static final class Track {
+            private long[] keys = new long[64];
+            private int[] slots = new int[64];
+            private int count;
+
+            int slot(Pattern pattern, int k, int row, int col) {
+                long key = (long) row * pattern.size + col;
+                if (k < count && keys[k] == key) {
+                    return slots[k];
+                }
+                int slot = pattern.slot(row, col);
+                if (k >= keys.length) {
+                    keys = java.util.Arrays.copyOf(keys, 2 * k);
+                    slots = java.util.Arrays.copyOf(slots, 2 * k);
+                }
+                keys[k] = key;
+                slots[k] = slot;
+                count = Math.max(count, k + 1);
+                return slot;
             }
-            int slot = pattern.slot(row, col);
-            if (k >= cKeys.length) {
-                cKeys = java.util.Arrays.copyOf(cKeys, 2 * k);
-                cSlots = java.util.Arrays.copyOf(cSlots, 2 * k);
-            }
-            cKeys[k] = key;
-            cSlots[k] = slot;
-            cCount = Math.max(cCount, k + 1);
-            return slot;
         }
     }
 

@@ -29,34 +29,23 @@ final class SparseComplexLu implements ComplexLinearSolver {
     static final double DEFAULT_TOO_SMALL = SparseLu.DEFAULT_TOO_SMALL;
 
     private final double tooSmall;
+    /** Pattern of A by columns, column order, pivot rows, patterns of L and U, reach (shared with {@link SparseLu}). */
+    private final SparseLuSymbolic sym = new SparseLuSymbolic();
     private int n = -1;
     private MnaSystem.Pattern lastPattern;
     private double[] rowScale;
-    // A, equilibrated, by columns.
-    private int[] ap;
-    private int[] ai;
+    // A, equilibrated, by columns (values beside sym.ai).
     private double[] axRe;
     private double[] axIm;
     private int[] toColumn;
-    private int[] order;
-    // Factors: L by columns with unit diagonal first; U by columns with the diagonal last.
-    private int[] lp;
-    private int[] li;
+    // Values of L (beside sym.li) and U (beside sym.ui).
     private double[] lxRe;
     private double[] lxIm;
-    private int[] up;
-    private int[] ui;
     private double[] uxRe;
     private double[] uxIm;
-    private int[] pinv;
     // Work.
     private double[] xRe;
     private double[] xIm;
-    private int[] xi;
-    private int[] stack;
-    private int[] pstack;
-    private int[] mark;
-    private int stamp;
     private double[] yRe;
     private double[] yIm;
     private boolean factored;
@@ -86,7 +75,7 @@ final class SparseComplexLu implements ComplexLinearSolver {
 
     /** Nonzeros of L and U of the last factorisation (L's unit diagonal included). */
     int factorNonzeros() {
-        return factored ? lp[n] + up[n] : 0;
+        return factored ? sym.factorNonzeros() : 0;
     }
 
     /**
@@ -201,6 +190,12 @@ final class SparseComplexLu implements ComplexLinearSolver {
         }
         double[] vr = yRe;
         double[] vi = yIm;
+        int[] pinv = sym.pinv;
+        int[] lp = sym.lp;
+        int[] li = sym.li;
+        int[] up = sym.up;
+        int[] ui = sym.ui;
+        int[] order = sym.order;
         for (int i = 0; i < n; i++) {
             int k = pinv[i];
             vr[k] = bRe[i] * rowScale[i];
@@ -251,44 +246,19 @@ final class SparseComplexLu implements ComplexLinearSolver {
         int size = p.size;
         int entries = p.entries();
         n = size;
+        int cap = Math.max(4 * entries, 8 * size + 16);
+        sym.allocate(size, entries, cap);
+        toColumn = sym.columnStore(p);
+        sym.order = p.fillOrder();
         rowScale = new double[size];
-        ap = new int[size + 1];
-        ai = new int[entries];
         axRe = new double[entries];
         axIm = new double[entries];
-        toColumn = new int[entries];
-        for (int k = 0; k < entries; k++) {
-            ap[p.columns[k] + 1]++;
-        }
-        for (int j = 0; j < size; j++) {
-            ap[j + 1] += ap[j];
-        }
-        int[] next = Arrays.copyOf(ap, size);
-        for (int i = 0; i < size; i++) {
-            for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
-                int slot = next[p.columns[k]]++;
-                ai[slot] = i;
-                toColumn[k] = slot;
-            }
-        }
-        order = p.fillOrder();
-        int cap = Math.max(4 * entries, 8 * size + 16);
-        lp = new int[size + 1];
-        up = new int[size + 1];
-        li = new int[cap];
         lxRe = new double[cap];
         lxIm = new double[cap];
-        ui = new int[cap];
         uxRe = new double[cap];
         uxIm = new double[cap];
-        pinv = new int[size];
         xRe = new double[size];
         xIm = new double[size];
-        xi = new int[size];
-        stack = new int[size];
-        pstack = new int[size];
-        mark = new int[size];
-        stamp = 0;
         yRe = new double[size];
         yIm = new double[size];
         lastPattern = p;
@@ -297,25 +267,7 @@ final class SparseComplexLu implements ComplexLinearSolver {
 
     /** Sort each column of U by row (the diagonal stays last) so that {@link #refactor} can run in order. */
     private void prepareRefactor() {
-        for (int k = 0; k < n; k++) {
-            int start = up[k];
-            int end = up[k + 1] - 1;
-            for (int p = start + 1; p < end; p++) {
-                int row = ui[p];
-                double vr = uxRe[p];
-                double vi = uxIm[p];
-                int q = p - 1;
-                while (q >= start && ui[q] > row) {
-                    ui[q + 1] = ui[q];
-                    uxRe[q + 1] = uxRe[q];
-                    uxIm[q + 1] = uxIm[q];
-                    q--;
-                }
-                ui[q + 1] = row;
-                uxRe[q + 1] = vr;
-                uxIm[q + 1] = vi;
-            }
-        }
+        sym.sortColumnsOfU(uxRe, uxIm);
         refactorReady = true;
     }
 
@@ -329,6 +281,14 @@ final class SparseComplexLu implements ComplexLinearSolver {
         double[] wi = xIm;
         double tooSmall2 = tooSmall * tooSmall;
         double threshold2 = SparseLu.PIVOT_THRESHOLD * SparseLu.PIVOT_THRESHOLD;
+        int[] order = sym.order;
+        int[] ap = sym.ap;
+        int[] ai = sym.ai;
+        int[] pinv = sym.pinv;
+        int[] lp = sym.lp;
+        int[] li = sym.li;
+        int[] up = sym.up;
+        int[] ui = sym.ui;
         for (int k = 0; k < n; k++) {
             int col = order[k];
             for (int p = ap[col]; p < ap[col + 1]; p++) {
@@ -390,10 +350,17 @@ final class SparseComplexLu implements ComplexLinearSolver {
         return true;
     }
 
-    /** Gilbert–Peierls left-looking factorisation of the column store in {@link #order}, with threshold pivoting. */
+    /** Gilbert–Peierls left-looking factorisation of the column store in the symbolic part's order, with threshold pivoting. */
     private void decompose() {
         fullFactorisations++;
-        Arrays.fill(pinv, -1);
+        sym.beginDecompose();
+        int[] order = sym.order;
+        int[] pinv = sym.pinv;
+        int[] xi = sym.xi;
+        int[] lp = sym.lp;
+        int[] up = sym.up;
+        int[] li = sym.li;
+        int[] ui = sym.ui;
         double tooSmall2 = tooSmall * tooSmall;
         double threshold2 = SparseLu.PIVOT_THRESHOLD * SparseLu.PIVOT_THRESHOLD;
         int lnz = 0;
@@ -401,15 +368,15 @@ final class SparseComplexLu implements ComplexLinearSolver {
         for (int k = 0; k < n; k++) {
             lp[k] = lnz;
             up[k] = unz;
-            if (lnz + n > li.length) {
-                int cap = 2 * li.length + n;
-                li = Arrays.copyOf(li, cap);
+            int cap = sym.roomInL(lnz);
+            if (cap > 0) {
+                li = sym.li;
                 lxRe = Arrays.copyOf(lxRe, cap);
                 lxIm = Arrays.copyOf(lxIm, cap);
             }
-            if (unz + n > ui.length) {
-                int cap = 2 * ui.length + n;
-                ui = Arrays.copyOf(ui, cap);
+            cap = sym.roomInU(unz);
+            if (cap > 0) {
+                ui = sym.ui;
                 uxRe = Arrays.copyOf(uxRe, cap);
                 uxIm = Arrays.copyOf(uxIm, cap);
             }
@@ -440,7 +407,7 @@ final class SparseComplexLu implements ComplexLinearSolver {
                 throw new AnalysisException(AnalysisException.Kind.SINGULAR,
                         "the system matrix is singular at unknown " + k);
             }
-            if (pinv[col] < 0 && mark[col] == stamp
+            if (pinv[col] < 0 && sym.reached(col)
                     && xRe[col] * xRe[col] + xIm[col] * xIm[col] >= threshold2 * best) {
                 ipiv = col;
             }
@@ -469,29 +436,21 @@ final class SparseComplexLu implements ComplexLinearSolver {
                 xIm[i] = 0;
             }
         }
-        lp[n] = lnz;
-        up[n] = unz;
-        for (int p = 0; p < lnz; p++) {
-            li[p] = pinv[li[p]];
-        }
+        sym.endDecompose(lnz, unz);
     }
 
     /**
      * x = L \ A(:, col) over the columns of L made so far; the nonzero pattern is left in
-     * {@code xi[top..n-1]} (marked with the current stamp), in topological order. Returns top.
+     * the symbolic part's {@code xi[top..n-1]}, in topological order. Returns top.
      */
     private int lowerSolve(int col) {
-        if (++stamp == Integer.MAX_VALUE) {
-            Arrays.fill(mark, 0);
-            stamp = 1;
-        }
-        int top = n;
-        for (int p = ap[col]; p < ap[col + 1]; p++) {
-            int i = ai[p];
-            if (mark[i] != stamp) {
-                top = depthFirst(i, top);
-            }
-        }
+        int top = sym.reach(col);
+        int[] xi = sym.xi;
+        int[] ap = sym.ap;
+        int[] ai = sym.ai;
+        int[] pinv = sym.pinv;
+        int[] lp = sym.lp;
+        int[] li = sym.li;
         for (int p = top; p < n; p++) {
             xRe[xi[p]] = 0;
             xIm[xi[p]] = 0;
@@ -516,37 +475,6 @@ final class SparseComplexLu implements ComplexLinearSolver {
                     xRe[i] -= lr * ar - lim * ai2;
                     xIm[i] -= lr * ai2 + lim * ar;
                 }
-            }
-        }
-        return top;
-    }
-
-    /** Non-recursive depth-first search from row j in the graph of L; pushes finished rows onto xi. */
-    private int depthFirst(int start, int top) {
-        int head = 0;
-        stack[0] = start;
-        while (head >= 0) {
-            int j = stack[head];
-            int jj = pinv[j];
-            if (mark[j] != stamp) {
-                mark[j] = stamp;
-                pstack[head] = jj < 0 ? 0 : lp[jj];
-            }
-            boolean done = true;
-            int end = jj < 0 ? 0 : lp[jj + 1];
-            for (int p = pstack[head]; p < end; p++) {
-                int i = li[p];
-                if (mark[i] == stamp) {
-                    continue;
-                }
-                pstack[head] = p;
-                stack[++head] = i;
-                done = false;
-                break;
-            }
-            if (done) {
-                head--;
-                xi[--top] = j;
             }
         }
         return top;

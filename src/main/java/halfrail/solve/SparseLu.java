@@ -37,31 +37,20 @@ public final class SparseLu implements LinearSolver {
     public static final double PIVOT_THRESHOLD = 0.1;
 
     private final double tooSmall;
+    /** Pattern of A by columns, column order, pivot rows, patterns of L and U, reach. */
+    private final SparseLuSymbolic sym = new SparseLuSymbolic();
     private int n = -1;
     private double[] rowScale;
-    // A, equilibrated, by columns.
-    private int[] ap;
-    private int[] ai;
+    // A, equilibrated, by columns (values beside sym.ai).
     private double[] ax;
     // Union of the patterns seen, one bit per entry, row-major.
     private long[] pattern;
     private int words;
-    private int[] order;
-    // Factors: L by columns with unit diagonal first; U by columns with the diagonal last.
-    private int[] lp;
-    private int[] li;
+    // Values of L (beside sym.li) and U (beside sym.ui).
     private double[] lx;
-    private int[] up;
-    private int[] ui;
     private double[] ux;
-    private int[] pinv;
     // Work.
     private double[] x;
-    private int[] xi;
-    private int[] stack;
-    private int[] pstack;
-    private int[] mark;
-    private int stamp;
     private double[] y;
     private boolean factored;
     /** The pattern whose column store and order are set up, for {@link #factor(MnaSystem.Pattern, double[])}. */
@@ -84,7 +73,7 @@ public final class SparseLu implements LinearSolver {
 
     /** Nonzeros of L and U of the last factorisation (L's unit diagonal included), for tests and reports. */
     public int factorNonzeros() {
-        return factored ? lp[n] + up[n] : 0;
+        return factored ? sym.factorNonzeros() : 0;
     }
 
     @Override
@@ -97,8 +86,8 @@ public final class SparseLu implements LinearSolver {
         refactorReady = false;
         boolean grew = scatter(a);
         bitsEmpty = false;
-        if (grew || order == null) {
-            order = minimumDegree();
+        if (grew || sym.order == null) {
+            sym.order = minimumDegree();
         }
         decompose();
         factored = true;
@@ -137,35 +126,21 @@ public final class SparseLu implements LinearSolver {
             allocate(p.size);
             lastPattern = null;
         }
-        int entries = p.entries();
         if (p != lastPattern) {
-            if (ai.length < entries) {
-                ai = new int[entries];
-                ax = new double[entries];
+            toColumn = sym.columnStore(p);
+            if (ax.length < sym.ai.length) {
+                ax = new double[sym.ai.length];
             }
-            Arrays.fill(ap, 0);
-            for (int k = 0; k < entries; k++) {
-                ap[p.columns[k] + 1]++;
-            }
-            for (int j = 0; j < n; j++) {
-                ap[j + 1] += ap[j];
-            }
-            toColumn = new int[entries];
-            int[] next = xi;
-            System.arraycopy(ap, 0, next, 0, n);
             for (int i = 0; i < n; i++) {
                 int base = i * words;
                 for (int k = p.rowStart[i]; k < p.rowStart[i + 1]; k++) {
                     int j = p.columns[k];
-                    int slot = next[j]++;
-                    ai[slot] = i;
-                    toColumn[k] = slot;
                     pattern[base + (j >>> 6)] |= 1L << (j & 63);
                 }
             }
             // A fresh union pattern equals p's: take p's shared order (the same algorithm on
             // the same graph) instead of making it again.
-            order = bitsEmpty ? p.fillOrder() : minimumDegree();
+            sym.order = bitsEmpty ? p.fillOrder() : minimumDegree();
             bitsEmpty = false;
             lastPattern = p;
             refactorReady = false;
@@ -199,22 +174,7 @@ public final class SparseLu implements LinearSolver {
 
     /** Sort each column of U by row (the diagonal stays last) so that {@link #refactor} can run in order. */
     private void prepareRefactor() {
-        for (int k = 0; k < n; k++) {
-            int start = up[k];
-            int end = up[k + 1] - 1; // the diagonal is last and the largest row index
-            for (int p = start + 1; p < end; p++) {
-                int row = ui[p];
-                double v = ux[p];
-                int q = p - 1;
-                while (q >= start && ui[q] > row) {
-                    ui[q + 1] = ui[q];
-                    ux[q + 1] = ux[q];
-                    q--;
-                }
-                ui[q + 1] = row;
-                ux[q + 1] = v;
-            }
-        }
+        sym.sortColumnsOfU(ux, null);
         refactorReady = true;
     }
 
@@ -226,6 +186,14 @@ public final class SparseLu implements LinearSolver {
      */
     private boolean refactor() {
         double[] w = x;
+        int[] order = sym.order;
+        int[] ap = sym.ap;
+        int[] ai = sym.ai;
+        int[] pinv = sym.pinv;
+        int[] lp = sym.lp;
+        int[] li = sym.li;
+        int[] up = sym.up;
+        int[] ui = sym.ui;
         for (int k = 0; k < n; k++) {
             int col = order[k];
             for (int p = ap[col]; p < ap[col + 1]; p++) {
@@ -270,6 +238,12 @@ public final class SparseLu implements LinearSolver {
     @Override
     public void solve(double[] b) {
         double[] v = y;
+        int[] pinv = sym.pinv;
+        int[] lp = sym.lp;
+        int[] li = sym.li;
+        int[] up = sym.up;
+        int[] ui = sym.ui;
+        int[] order = sym.order;
         for (int i = 0; i < n; i++) {
             v[pinv[i]] = b[i] * rowScale[i];
         }
@@ -299,32 +273,21 @@ public final class SparseLu implements LinearSolver {
     private void allocate(int size) {
         refactorReady = false;
         n = size;
+        sym.allocate(size, 4 * size + 16, 8 * size + 16);
         rowScale = new double[size];
-        ap = new int[size + 1];
-        ai = new int[4 * size + 16];
-        ax = new double[ai.length];
+        ax = new double[sym.ai.length];
         words = (size + 63) >>> 6;
         pattern = new long[size * words];
         bitsEmpty = true;
-        order = null;
-        lp = new int[size + 1];
-        up = new int[size + 1];
-        li = new int[8 * size + 16];
-        lx = new double[li.length];
-        ui = new int[8 * size + 16];
-        ux = new double[ui.length];
-        pinv = new int[size];
+        lx = new double[sym.li.length];
+        ux = new double[sym.ui.length];
         x = new double[size];
-        xi = new int[size];
-        stack = new int[size];
-        pstack = new int[size];
-        mark = new int[size];
-        stamp = 0;
         y = new double[size];
     }
 
     /** Equilibrate the rows of a into the column store; true when the union pattern grew. */
     private boolean scatter(double[][] a) {
+        int[] ap = sym.ap;
         Arrays.fill(ap, 0);
         int nnz = 0;
         boolean grew = false;
@@ -362,11 +325,12 @@ public final class SparseLu implements LinearSolver {
         for (int j = 0; j < n; j++) {
             ap[j + 1] += ap[j];
         }
-        if (ai.length < nnz) {
-            ai = new int[2 * nnz];
+        if (sym.ai.length < nnz) {
+            sym.ai = new int[2 * nnz];
             ax = new double[2 * nnz];
         }
-        int[] next = xi; // as a cursor per column
+        int[] ai = sym.ai;
+        int[] next = sym.xi; // as a cursor per column
         System.arraycopy(ap, 0, next, 0, n);
         for (int i = 0; i < n; i++) {
             double[] row = a[i];
@@ -389,89 +353,32 @@ public final class SparseLu implements LinearSolver {
      * eliminated and its neighbours joined into a clique.
      */
     private int[] minimumDegree() {
-        return minimumDegree(pattern, n, words);
+        return SparseLuSymbolic.minimumDegree(pattern, n, words);
     }
 
-    /**
-     * Minimum-degree order of the pattern {@code bits} (n rows of {@code words} 64-bit words,
-     * row-major) made symmetric; see {@link #minimumDegree()}. Shared with
-     * {@link MnaSystem.Pattern#fillOrder()} and {@link SparseComplexLu}.
-     */
-    static int[] minimumDegree(long[] bits, int n, int words) {
-        long[] adj = new long[n * words];
-        for (int i = 0; i < n; i++) {
-            for (int w = 0; w < words; w++) {
-                long row = bits[i * words + w];
-                while (row != 0) {
-                    int j = (w << 6) + Long.numberOfTrailingZeros(row);
-                    row &= row - 1;
-                    if (j != i) {
-                        adj[i * words + (j >>> 6)] |= 1L << (j & 63);
-                        adj[j * words + (i >>> 6)] |= 1L << (i & 63);
-                    }
-                }
-            }
-        }
-        int[] degree = new int[n];
-        for (int i = 0; i < n; i++) {
-            degree[i] = popCount(adj, i, words);
-        }
-        boolean[] gone = new boolean[n];
-        int[] result = new int[n];
-        for (int k = 0; k < n; k++) {
-            int v = -1;
-            for (int i = 0; i < n; i++) {
-                if (!gone[i] && (v < 0 || degree[i] < degree[v])) {
-                    v = i;
-                }
-            }
-            result[k] = v;
-            gone[v] = true;
-            int vb = v * words;
-            long vbit = 1L << (v & 63);
-            int vw = v >>> 6;
-            for (int w = 0; w < words; w++) {
-                long row = adj[vb + w];
-                while (row != 0) {
-                    int u = (w << 6) + Long.numberOfTrailingZeros(row);
-                    row &= row - 1;
-                    int ub = u * words;
-                    for (int z = 0; z < words; z++) {
-                        adj[ub + z] |= adj[vb + z];
-                    }
-                    adj[ub + (u >>> 6)] &= ~(1L << (u & 63));
-                    adj[ub + vw] &= ~vbit;
-                    degree[u] = popCount(adj, u, words);
-                }
-            }
-        }
-        return result;
-    }
-
-    private static int popCount(long[] adj, int i, int words) {
-        int count = 0;
-        for (int w = 0; w < words; w++) {
-            count += Long.bitCount(adj[i * words + w]);
-        }
-        return count;
-    }
-
-    /** Gilbert–Peierls left-looking factorisation of the column store in {@link #order}. */
+    /** Gilbert–Peierls left-looking factorisation of the column store in the symbolic part's order. */
     private void decompose() {
-        Arrays.fill(pinv, -1);
+        sym.beginDecompose();
+        int[] order = sym.order;
+        int[] pinv = sym.pinv;
+        int[] xi = sym.xi;
+        int[] lp = sym.lp;
+        int[] up = sym.up;
+        int[] li = sym.li;
+        int[] ui = sym.ui;
         int lnz = 0;
         int unz = 0;
         for (int k = 0; k < n; k++) {
             lp[k] = lnz;
             up[k] = unz;
-            if (lnz + n > li.length) {
-                int cap = 2 * li.length + n;
-                li = Arrays.copyOf(li, cap);
+            int cap = sym.roomInL(lnz);
+            if (cap > 0) {
+                li = sym.li;
                 lx = Arrays.copyOf(lx, cap);
             }
-            if (unz + n > ui.length) {
-                int cap = 2 * ui.length + n;
-                ui = Arrays.copyOf(ui, cap);
+            cap = sym.roomInU(unz);
+            if (cap > 0) {
+                ui = sym.ui;
                 ux = Arrays.copyOf(ux, cap);
             }
             int col = order[k];
@@ -495,7 +402,7 @@ public final class SparseLu implements LinearSolver {
                 throw new AnalysisException(AnalysisException.Kind.SINGULAR,
                         "the system matrix is singular at unknown " + k);
             }
-            if (pinv[col] < 0 && mark[col] == stamp && Math.abs(x[col]) >= PIVOT_THRESHOLD * best) {
+            if (pinv[col] < 0 && sym.reached(col) && Math.abs(x[col]) >= PIVOT_THRESHOLD * best) {
                 ipiv = col;
             }
             double pivot = x[ipiv];
@@ -513,29 +420,21 @@ public final class SparseLu implements LinearSolver {
                 x[i] = 0;
             }
         }
-        lp[n] = lnz;
-        up[n] = unz;
-        for (int p = 0; p < lnz; p++) {
-            li[p] = pinv[li[p]];
-        }
+        sym.endDecompose(lnz, unz);
     }
 
     /**
      * x = L \ A(:, col) over the columns of L made so far; the nonzero pattern is left in
-     * {@code xi[top..n-1]} (marked with the current stamp), in topological order. Returns top.
+     * the symbolic part's {@code xi[top..n-1]}, in topological order. Returns top.
      */
     private int lowerSolve(int col) {
-        if (++stamp == Integer.MAX_VALUE) {
-            Arrays.fill(mark, 0);
-            stamp = 1;
-        }
-        int top = n;
-        for (int p = ap[col]; p < ap[col + 1]; p++) {
-            int i = ai[p];
-            if (mark[i] != stamp) {
-                top = depthFirst(i, top);
-            }
-        }
+        int top = sym.reach(col);
+        int[] xi = sym.xi;
+        int[] ap = sym.ap;
+        int[] ai = sym.ai;
+        int[] pinv = sym.pinv;
+        int[] lp = sym.lp;
+        int[] li = sym.li;
         for (int p = top; p < n; p++) {
             x[xi[p]] = 0;
         }
@@ -553,37 +452,6 @@ public final class SparseLu implements LinearSolver {
                 for (int p = lp[jj] + 1, end = lp[jj + 1]; p < end; p++) {
                     x[li[p]] -= lx[p] * xj;
                 }
-            }
-        }
-        return top;
-    }
-
-    /** Non-recursive depth-first search from row j in the graph of L; pushes finished rows onto xi. */
-    private int depthFirst(int start, int top) {
-        int head = 0;
-        stack[0] = start;
-        while (head >= 0) {
-            int j = stack[head];
-            int jj = pinv[j];
-            if (mark[j] != stamp) {
-                mark[j] = stamp;
-                pstack[head] = jj < 0 ? 0 : lp[jj];
-            }
-            boolean done = true;
-            int end = jj < 0 ? 0 : lp[jj + 1];
-            for (int p = pstack[head]; p < end; p++) {
-                int i = li[p];
-                if (mark[i] == stamp) {
-                    continue;
-                }
-                pstack[head] = p;
-                stack[++head] = i;
-                done = false;
-                break;
-            }
-            if (done) {
-                head--;
-                xi[--top] = j;
             }
         }
         return top;

@@ -68,7 +68,7 @@ class DesignFileSaveTest {
         byte[] before = Files.readAllBytes(file);
         byte[] next = DesignFiles.write(recorder()).getBytes(StandardCharsets.UTF_8);
         int[] written = {0};
-        AtomicFiles.ChannelWriter failsHalfway = (channel, bytes) -> {
+        AtomicWrite.ChannelWriter failsHalfway = (channel, bytes) -> {
             written[0] = channel.write(ByteBuffer.wrap(bytes, 0, bytes.length / 2));
             throw new IOException("simulated: the disk stopped after half the bytes");
         };
@@ -87,7 +87,7 @@ class DesignFileSaveTest {
         Path file = folder.resolve("design.json");
         DesignFiles.save(boost(), file);
         byte[] before = Files.readAllBytes(file);
-        AtomicFiles.ChannelWriter dies = (channel, bytes) -> {
+        AtomicWrite.ChannelWriter dies = (channel, bytes) -> {
             channel.write(ByteBuffer.wrap(bytes, 0, 10));
             throw new IllegalStateException("simulated crash");
         };

@@ -1,11 +1,12 @@
 package halfrail.io.report;
 
+import halfrail.io.AtomicWrite;
+
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
-import java.nio.charset.StandardCharsets;
 import java.util.Locale;
 
 /**
@@ -40,8 +41,9 @@ public final class ReviewFiles {
     }
 
     /**
-     * Render {@code review} and write both documents (each replaced whole: written to a temporary
-     * file beside it, then moved over it).
+     * Render {@code review} and write both documents, creating the folder if need be; each is
+     * replaced whole by {@link AtomicWrite} (written to a temporary file beside it, forced to the
+     * disk, then moved over it; no backup).
      *
      * @throws UncheckedIOException when a file cannot be written
      */
@@ -55,29 +57,10 @@ public final class ReviewFiles {
     }
 
     private static void replace(Path target, byte[] bytes) {
-        Path dir = target.toAbsolutePath().getParent();
-        Path tmp = null;
         try {
-            Files.createDirectories(dir);
-            tmp = Files.createTempFile(dir, "." + target.getFileName(), ".tmp");
-            Files.write(tmp, bytes);
-            if (Files.getFileStore(tmp).supportsFileAttributeView(java.nio.file.attribute.PosixFileAttributeView.class)) {
-                // A temporary file is private to its owner; a report is for passing on.
-                Files.setPosixFilePermissions(tmp, java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
-            }
-            try {
-                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-            } catch (java.nio.file.AtomicMoveNotSupportedException e) {
-                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
-            }
+            Files.createDirectories(target.toAbsolutePath().getParent());
+            AtomicWrite.replace(target, bytes, null, AtomicWrite.WHOLE);
         } catch (IOException e) {
-            if (tmp != null) {
-                try {
-                    Files.deleteIfExists(tmp);
-                } catch (IOException ignored) {
-                    // the write already failed; that failure is reported
-                }
-            }
             throw new UncheckedIOException(target + ": cannot write (" + e.getClass().getSimpleName() + ")", e);
         }
     }
