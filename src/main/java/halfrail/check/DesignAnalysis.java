@@ -370,7 +370,7 @@ public final class DesignAnalysis {
             OptionalDouble settle = r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty());
             double[] times = r.timesSeconds();
             return new PowerOnReport(r.settled(), settle, band, times[times.length - 1], pinned, step,
-                    Optional.of(trace(r)));
+                    Optional.of(trace(r)), r.oscillation());
         }
 
         /** Every op-amp output and the load, sampled at evenly spaced times over the run. */

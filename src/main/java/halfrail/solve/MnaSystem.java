@@ -29,7 +29,16 @@ import java.util.Map;
  * {@code L(u)}: u itself inside the swing window {@code [V(vNeg)+swingLow, V(vPos)−swingHigh]}
  * and an exponential knee of width {@link #KNEE_VOLTS} towards each limit, so the output
  * approaches but never crosses them. In DC the state equals L(u); in the dynamic form it
- * follows {@code dx/dt = SR·tanh(ωp·(L(u) − x)/SR)}, a dominant pole at GBW/A with slew limit.
+ * follows {@code dx/dt = SR·tanh(G·(L(u) − x)/SR)}, a dominant pole at GBW/A with slew limit.
+ * The rate {@code G = ωp·(1 + b)/(1 + b/A)} grows with the overdrive the limiter cuts off,
+ * {@code b ≈ |u − L(u)| / |L(u) − x|} (both magnitudes smoothed over one knee width): inside the
+ * window b = 0 and G is the pole's ωp; beyond a limit, while the output still has far to go,
+ * {@code G·(L − x) ≈ ωp·(u − x)}, the drive a real part's integrator sees (the whole overdrive,
+ * not the clipped target), so a stage driven hard into a rail slews there at SR; as it arrives,
+ * G tops out at {@code A·ωp = 2π·GBW}, the unity-gain time constant. With the clipped target
+ * alone the output crept into a rail at the open-loop pole (A/(2π·GBW): tens of milliseconds
+ * for common parts, seconds for micropower ones), and an astable's rail-to-rail flips took
+ * milliseconds ({@code PowerOnOscillatorTest}).
  * The output pin sits at {@code x − Rout·Iout}. Bias currents flow into the input pins and out
  * through V−; the quiescent current flows from V+ to V−; the output current is drawn from V+
  * when sourcing and returned to V− when sinking, so the supply's branch current is the battery
@@ -971,14 +980,34 @@ public final class MnaSystem {
                 s.g(st, st, 1);
                 addTargetJacobian(s, -1, dU, dLo, dHi);
             } else {
-                // dx/dt - SR * tanh(wp * (L - x) / SR) = 0
-                double arg = poleRadPerSecond * (limited - xs) / slew;
+                // dx/dt - SR * tanh(G * (L - x) / SR) = 0 with G = wp * r(b) (see the class comment):
+                // b ~ |u - L| / |L - x| is the overdrive the limiter cuts off relative to the gap
+                // still to go, both magnitudes smoothed over one knee width; r = (1 + b) / (1 + b / A)
+                // makes G (L - x) ~ wp (u - x), the unclipped integrator, while the gap is large,
+                // and caps G at A wp = 2 pi GBW as the output arrives at its limit.
+                double a0 = gain * s.gainScale;
+                double over = u - limited;
+                double gap = limited - xs;
+                double sOver = Math.sqrt(over * over + KNEE_VOLTS * KNEE_VOLTS);
+                double sGap = Math.sqrt(gap * gap + KNEE_VOLTS * KNEE_VOLTS);
+                double b = (sOver - KNEE_VOLTS) / sGap;
+                double den = 1 + b / a0;
+                double r = (1 + b) / den;
+                double dr = (1 - 1 / a0) / (den * den);
+                double g = poleRadPerSecond * r;
+                double arg = g * gap / slew;
                 double th = Math.tanh(arg);
                 double sech2 = 1 - th * th;
                 s.f[st] += -slew * th;
-                double dLimited = -poleRadPerSecond * sech2; // d f / d L
-                s.g(st, st, poleRadPerSecond * sech2);
-                addTargetJacobian(s, dLimited, dU, dLo, dHi);
+                // f = -SR tanh(P / SR), P = G gap: df/dv = -sech2 dP/dv, and
+                // dP/dv = W d(gap)/dv + gap wp r' (db/d over) d(over)/dv, W = G + gap wp r' (db/d gap);
+                // d(gap)/dx = -1; d(gap)/d(u, lo, hi) = dL; d(over)/d(u, lo, hi) = (1 - dU, -dLo, -dHi).
+                double bOver = over / sOver / sGap;
+                double bGap = -b * gap / (sGap * sGap);
+                double w = g + gap * poleRadPerSecond * dr * bGap;
+                double v = gap * poleRadPerSecond * dr * bOver;
+                s.g(st, st, sech2 * w);
+                addTargetJacobian(s, -sech2, w * dU + v * (1 - dU), w * dLo - v * dLo, w * dHi - v * dHi);
                 if (s.q != null) {
                     s.q[st] += xs;
                 }

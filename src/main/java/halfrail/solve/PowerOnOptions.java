@@ -21,10 +21,13 @@ import java.util.List;
  *                              op-amp state lies within {@link PowerOnTransient#EARLY_STOP_FRACTION}
  *                              of the band from its final value, after the last source ramp, at
  *                              {@link PowerOnTransient#EARLY_STOP_POINTS} accepted points in a row
+ * @param stopWhenOscillating   whether to stop before {@code stopSeconds} once a watched node is
+ *                              seen to keep oscillating across its final value (see
+ *                              {@link PowerOnResult.Oscillation}); the oscillation is reported either way
  */
 public record PowerOnOptions(double stopSeconds, double settleBandVolts, List<String> watchedNodes,
                              List<String> loadNodes, double maxStepSeconds, double relativeTolerance,
-                             double voltageToleranceVolts, boolean stopWhenSettled) {
+                             double voltageToleranceVolts, boolean stopWhenSettled, boolean stopWhenOscillating) {
 
     /** Default settle band, V: ±10 mV around the final value (a choice of this tool). */
     public static final double DEFAULT_SETTLE_BAND_VOLTS = 0.01;
@@ -52,48 +55,54 @@ public record PowerOnOptions(double stopSeconds, double settleBandVolts, List<St
     /**
      * Defaults for a run up to {@code stopSeconds}: band {@value #DEFAULT_SETTLE_BAND_VOLTS} V,
      * op-amp outputs watched, no load nodes, largest step stop/50, tolerances 1e-4 and 1 µV,
-     * early stop on.
+     * early stop on (settled or oscillating).
      */
     public static PowerOnOptions of(double stopSeconds) {
         return new PowerOnOptions(stopSeconds, DEFAULT_SETTLE_BAND_VOLTS, List.of(), List.of(),
                 DEFAULT_MAX_STEP_FRACTION * stopSeconds, DEFAULT_RELATIVE_TOLERANCE,
-                DEFAULT_VOLTAGE_TOLERANCE_VOLTS, true);
+                DEFAULT_VOLTAGE_TOLERANCE_VOLTS, true, true);
     }
 
     /** Copy with another settle band, V. */
     public PowerOnOptions withSettleBand(double volts) {
         return new PowerOnOptions(stopSeconds, volts, watchedNodes, loadNodes, maxStepSeconds, relativeTolerance,
-                voltageToleranceVolts, stopWhenSettled);
+                voltageToleranceVolts, stopWhenSettled, stopWhenOscillating);
     }
 
     /** Copy with other watched nodes (in addition to op-amp outputs and load nodes). */
     public PowerOnOptions withWatchedNodes(String... nodes) {
         return new PowerOnOptions(stopSeconds, settleBandVolts, List.of(nodes), loadNodes, maxStepSeconds,
-                relativeTolerance, voltageToleranceVolts, stopWhenSettled);
+                relativeTolerance, voltageToleranceVolts, stopWhenSettled, stopWhenOscillating);
     }
 
     /** Copy with other load nodes. */
     public PowerOnOptions withLoadNodes(String... nodes) {
         return new PowerOnOptions(stopSeconds, settleBandVolts, watchedNodes, List.of(nodes), maxStepSeconds,
-                relativeTolerance, voltageToleranceVolts, stopWhenSettled);
+                relativeTolerance, voltageToleranceVolts, stopWhenSettled, stopWhenOscillating);
     }
 
     /** Copy with another largest step, s. */
     public PowerOnOptions withMaxStep(double seconds) {
         return new PowerOnOptions(stopSeconds, settleBandVolts, watchedNodes, loadNodes, seconds, relativeTolerance,
-                voltageToleranceVolts, stopWhenSettled);
+                voltageToleranceVolts, stopWhenSettled, stopWhenOscillating);
     }
 
     /** Copy with other local-error tolerances: relative (fraction) and absolute (V). */
     public PowerOnOptions withTolerances(double relative, double volts) {
         return new PowerOnOptions(stopSeconds, settleBandVolts, watchedNodes, loadNodes, maxStepSeconds, relative,
-                volts, stopWhenSettled);
+                volts, stopWhenSettled, stopWhenOscillating);
     }
 
     /** Copy that does or does not stop early once settled. */
     public PowerOnOptions withStopWhenSettled(boolean stop) {
         return new PowerOnOptions(stopSeconds, settleBandVolts, watchedNodes, loadNodes, maxStepSeconds,
-                relativeTolerance, voltageToleranceVolts, stop);
+                relativeTolerance, voltageToleranceVolts, stop, stopWhenOscillating);
+    }
+
+    /** Copy that does or does not stop early once a sustained oscillation is seen. */
+    public PowerOnOptions withStopWhenOscillating(boolean stop) {
+        return new PowerOnOptions(stopSeconds, settleBandVolts, watchedNodes, loadNodes, maxStepSeconds,
+                relativeTolerance, voltageToleranceVolts, stopWhenSettled, stop);
     }
 
     private static void require(boolean ok, String message) {

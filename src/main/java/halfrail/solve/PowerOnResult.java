@@ -22,7 +22,31 @@ public final class PowerOnResult {
          */
         SETTLED,
         /** Reached the stop time; {@link #settled()} says whether the watched nodes were in band there. */
-        STOP_TIME_REACHED
+        STOP_TIME_REACHED,
+        /**
+         * Stopped early because a watched node kept oscillating across its final value
+         * ({@link #oscillation()}): such a circuit does not settle however long it runs.
+         */
+        OSCILLATING
+    }
+
+    /**
+     * A sustained oscillation seen in the run, as {@link OscillationWatch} recognises it: a
+     * watched node swinging across its final value, beyond the settle band on both sides, with
+     * swings that keep their size over {@link OscillationWatch#HALF_CYCLES} half-cycles.
+     *
+     * @param node             the watched node that showed it first
+     * @param periodSeconds    mean period over the half-cycles that showed it, s
+     * @param peakToPeakVolts  sum of the last two excursions (one each side of the final value), V
+     * @param fromSeconds      the crossing that began the first of those half-cycles, s
+     * @param seenAtSeconds    the crossing at which it was recognised, s
+     */
+    public record Oscillation(String node, double periodSeconds, double peakToPeakVolts, double fromSeconds,
+                              double seenAtSeconds) {
+        /** 1 / period, Hz. */
+        public double frequencyHz() {
+            return 1 / periodSeconds;
+        }
     }
 
     /**
@@ -82,11 +106,12 @@ public final class PowerOnResult {
     private final Optional<Double> settleTimeSeconds;
     private final List<RailTime> railTimes;
     private final List<LoadStep> loadSteps;
+    private final Optional<Oscillation> oscillation;
 
     PowerOnResult(MnaSystem system, OperatingPoint finalPoint, double[] times, double[][] solutions, int[] orders,
                   boolean[] restarts, StepStatistics statistics, Ending ending, double settleBandVolts,
                   List<String> watchedNodes, boolean settled, Optional<Double> settleTimeSeconds,
-                  List<RailTime> railTimes, List<LoadStep> loadSteps) {
+                  List<RailTime> railTimes, List<LoadStep> loadSteps, Optional<Oscillation> oscillation) {
         this.system = system;
         this.finalPoint = finalPoint;
         // The arrays are taken over, not copied: the one caller (PowerOnTransient) hands over the
@@ -104,6 +129,7 @@ public final class PowerOnResult {
         this.settleTimeSeconds = settleTimeSeconds;
         this.railTimes = List.copyOf(railTimes);
         this.loadSteps = List.copyOf(loadSteps);
+        this.oscillation = oscillation;
     }
 
     /** The equations the run solved (for unknown indices and names). */
@@ -269,6 +295,14 @@ public final class PowerOnResult {
         return loadSteps;
     }
 
+    /**
+     * The sustained oscillation seen, when a watched node kept swinging across its final value
+     * (see {@link Oscillation}); whether the run stopped on it is {@link #ending()}.
+     */
+    public Optional<Oscillation> oscillation() {
+        return oscillation;
+    }
+
     public Optional<LoadStep> loadStep(String node) {
         return loadSteps.stream().filter(l -> l.node().equals(node)).findFirst();
     }
@@ -276,6 +310,7 @@ public final class PowerOnResult {
     @Override
     public String toString() {
         return "PowerOnResult[" + ending + ", " + times.length + " points to t = " + times[times.length - 1]
-                + " s, settle " + settleTimeSeconds.map(s -> s + " s").orElse("not reached") + "]";
+                + " s, settle " + settleTimeSeconds.map(s -> s + " s").orElse("not reached")
+                + oscillation.map(o -> ", oscillating with period " + o.periodSeconds() + " s").orElse("") + "]";
     }
 }

@@ -19,8 +19,9 @@ import java.util.TreeSet;
  * <p>The final values come from {@link DcSolver}. The run steps with BDF2 (backward Euler at
  * the start and after each ramp end, both break points stepped onto exactly) under local-error
  * control, see {@link TransientStepper}. From the accepted points it reports the settle-up
- * time of the watched nodes, how long each op-amp's output sat on a rail, and the largest step
- * delivered into each load node.
+ * time of the watched nodes, how long each op-amp's output sat on a rail, the largest step
+ * delivered into each load node, and a sustained oscillation of a watched node when one is seen
+ * ({@link OscillationWatch}; the run may stop on it, since such a circuit never settles).
  */
 public final class PowerOnTransient {
     /**
@@ -69,8 +70,20 @@ public final class PowerOnTransient {
 
         TransientStepper stepper = new TransientStepper(system, Bdf2.INSTANCE);
         double nearBand = EARLY_STOP_FRACTION * options.settleBandVolts();
+        int[] watchedIndices = new int[watched.size()];
+        for (int i = 0; i < watchedIndices.length; i++) {
+            watchedIndices[i] = system.nodeIndex(watched.get(i));
+        }
+        OscillationWatch oscillation = new OscillationWatch(watchedIndices, watched.toArray(new String[0]), fin,
+                options.settleBandVolts(), lastRamp);
         int[] inBand = {0};
-        TransientStepper.EarlyStop early = !options.stopWhenSettled() ? null : (t, x) -> {
+        TransientStepper.EarlyStop early = (t, x) -> {
+            if (oscillation.accept(t, x) && options.stopWhenOscillating()) {
+                return true;
+            }
+            if (!options.stopWhenSettled()) {
+                return false;
+            }
             boolean near = t >= lastRamp;
             for (int i = 0; i < x.length && near; i++) {
                 if (stepper.isVoltage(i) && Math.abs(x[i] - fin[i]) > nearBand) {
@@ -95,13 +108,15 @@ public final class PowerOnTransient {
         PowerOnResult.StepStatistics stats = new PowerOnResult.StepStatistics(times.length - 1,
                 run.rejectedByError(), run.rejectedByNewton(), run.newtonIterations(),
                 times.length > 1 ? smallest : 0, largest);
-        PowerOnResult.Ending ending = run.stoppedEarly() ? PowerOnResult.Ending.SETTLED
-                : PowerOnResult.Ending.STOP_TIME_REACHED;
+        Optional<PowerOnResult.Oscillation> oscillating = oscillation.found();
+        PowerOnResult.Ending ending = !run.stoppedEarly() ? PowerOnResult.Ending.STOP_TIME_REACHED
+                : oscillating.isPresent() && options.stopWhenOscillating() ? PowerOnResult.Ending.OSCILLATING
+                : PowerOnResult.Ending.SETTLED;
 
         // A first result without the settle figures serves the interpolation.
         PowerOnResult raw = new PowerOnResult(system, finalPoint, times, run.solutions(), run.orders(),
                 run.restarts(), stats, ending, options.settleBandVolts(), watched, false, Optional.empty(),
-                List.of(), List.of());
+                List.of(), List.of(), Optional.empty());
         double[][] xs = run.solutions();
         int last = times.length - 1;
         double band = options.settleBandVolts();
@@ -149,7 +164,7 @@ public final class PowerOnTransient {
             loads.add(new PowerOnResult.LoadStep(node, peak, at));
         }
         PowerOnResult result = new PowerOnResult(system, finalPoint, times, xs, run.orders(), run.restarts(), stats,
-                ending, band, watched, settled, settleTime, rails, loads);
+                ending, band, watched, settled, settleTime, rails, loads, oscillating);
         SolveAudit.Listener audit = SolveAudit.listener;
         if (audit != null) {
             audit.powerOn(result);

@@ -65,7 +65,9 @@ public final class PowerOnChart extends LineChart<Number, Number> {
             settle.getData().add(new XYChart.Data<>(s, lo));
             settle.getData().add(new XYChart.Data<>(s, hi));
         } else {
-            settle.setName(String.format(Locale.ROOT, "not settled within the %s run", DecadeAxis.engineering(p.simulatedSeconds(), "s")));
+            settle.setName(p.oscillation().map(o -> String.format(Locale.ROOT, "keeps oscillating, period %s",
+                    DecadeAxis.engineering(o.periodSeconds(), "s"))).orElse(String.format(Locale.ROOT,
+                    "not settled within the %s run", DecadeAxis.engineering(p.simulatedSeconds(), "s"))));
         }
         getData().add(settle);
         settle.getNode().getStyleClass().add("settle-mark");

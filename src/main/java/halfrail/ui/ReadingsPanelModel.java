@@ -90,9 +90,7 @@ public final class ReadingsPanelModel {
     }
 
     private static void powerOn(PowerOnReport p, List<Figure> list) {
-        list.add(new Figure("settle-up after power-on", p.settled() && p.settleSeconds().isPresent()
-                ? EngineeringValue.format(p.settleSeconds().getAsDouble(), Unit.SECOND)
-                : "not settled within " + EngineeringValue.format(p.simulatedSeconds(), Unit.SECOND)));
+        list.add(new Figure("settle-up after power-on", p.settleSummary()));
         list.add(new Figure("power-on step at the load", EngineeringValue.format(p.loadStepVolts(), Unit.VOLT)));
     }
 

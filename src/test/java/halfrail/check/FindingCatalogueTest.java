@@ -41,7 +41,7 @@ class FindingCatalogueTest {
     static final List<String> ALL_CODES = List.of(NoDcPath.CODE, RestsOnRail.CODE, OffCentre.CODE, Headroom.CLIPS,
             Headroom.LOW, Headroom.END_POINT, CommonMode.CODE, BiasAmplified.CODE, LeakageDrift.CODE,
             CapacitorVoltage.REVERSED, CapacitorVoltage.OVER, Bandwidth.LOW_CORNER, Bandwidth.UPPER, Bandwidth.SLEW,
-            Ripple.CODE, BiasShift.CODE, PowerOn.SLOW, PowerOn.PINNED, PowerOn.STEP, CommonPractice.FEEDBACK,
+            Ripple.CODE, BiasShift.CODE, PowerOn.OSCILLATES, PowerOn.SLOW, PowerOn.PINNED, PowerOn.STEP, CommonPractice.FEEDBACK,
             CommonPractice.GAIN, SupplyAndRuntime.RANGE, SupplyAndRuntime.RUNTIME);
 
     static DesignReport healthy;
@@ -390,6 +390,51 @@ class FindingCatalogueTest {
         double pinned = r.powerOn().orElseThrow().pinnedSeconds().get("boost");
         assertTrue(pinned > 0.1, "pinned " + pinned);
         assertCarries(f, Quantities.seconds(pinned));
+    }
+
+    /** The recorder preamp sample (gain 48, 100k/100k reference with 4.7 µF, 220k bias) repeated to {@code n} stages. */
+    static Design preampRepeated(int n) {
+        Design base = halfrail.io.DesignFiles.read(java.nio.file.Path.of("samples", "handheld-recorder-mic-preamp.json"));
+        List<Stage> stages = new java.util.ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            Stage s = base.stages().get(0);
+            stages.add(new Stage(s.name() + "-" + (i + 1), s.kind(), s.opAmp(), s.feedbackOhms(), s.legOhms(),
+                    s.legCapacitor(), s.inputCapacitor(), s.biased()));
+        }
+        return base.withStages(stages);
+    }
+
+    @Test
+    void threeGainStagesOnOneSoftReferenceKeepOscillatingAfterSwitchOn() {
+        // Each stage's input capacitor and bias resistor feed its driver's swing back into the shared
+        // reference, which every stage amplifies: with three stages of gain 48 the loop closes at
+        // under 1 Hz and the chain swings from rail to rail for ever ("motorboating", common practice).
+        DesignReport r = DesignAnalysis.analyse(preampRepeated(3));
+        Finding f = only(r, PowerOn.OSCILLATES);
+        assertEquals(Severity.FAIL, f.severity());
+        assertEquals(List.of("reference"), f.parts());
+        PowerOnReport p = r.powerOn().orElseThrow();
+        var o = p.oscillation().orElseThrow();
+        assertTrue(o.periodSeconds() > 0.1 && o.periodSeconds() < 2, "period " + o.periodSeconds());
+        // rail to rail on a 3 V pack: the swing window of the low-voltage part
+        assertTrue(o.peakToPeakVolts() > 2.5, "swing " + o.peakToPeakVolts());
+        assertCarries(f, Quantities.seconds(o.periodSeconds()), Quantities.volts(o.peakToPeakVolts()));
+        assertFalse(p.settled());
+        // the run stops on the oscillation, well before its stop time of 5 × the settle limit
+        assertEquals(o.seenAtSeconds(), p.simulatedSeconds(), 1e-12);
+        assertTrue(p.simulatedSeconds() < DesignAnalysis.POWER_ON_RUN_FACTOR * r.design().thresholds().maxSettleSeconds());
+        // neither "not settled" nor "on a rail while the capacitors charge": the oscillation says it
+        assertTrue(r.findings(PowerOn.SLOW).isEmpty(), r.findings()::toString);
+        assertTrue(r.findings(PowerOn.PINNED).isEmpty(), r.findings()::toString);
+        // two such stages settle; and ten times the decoupling (47 µF), as the suggestion says, stops it
+        assertTrue(DesignAnalysis.analyse(preampRepeated(2)).powerOn().orElseThrow().oscillation().isEmpty());
+        Design d = preampRepeated(3);
+        Reference ref = d.reference();
+        Design stiffer = d.withReference(Reference.decoupled(ref.upperOhms(), ref.lowerOhms(),
+                ref.decoupling().withFarads(47e-6), ref.biasOhms()));
+        DesignReport fixed = DesignAnalysis.analyse(stiffer);
+        assertTrue(fixed.findings(PowerOn.OSCILLATES).isEmpty(), fixed.findings()::toString);
+        assertTrue(healthy.findings(PowerOn.OSCILLATES).isEmpty());
     }
 
     @Test

@@ -30,7 +30,8 @@ class PassbandFinderTest {
     @DisplayName("second-order band-pass: peak at f0, corners at f0·(√(1 + 1/4Q²) ∓ 1/2Q), bandwidth f0/Q (any circuits text, resonance of a series RLC)")
     void bandPassPeakAndCornersMatchTheClosedForm(double q) {
         AcPassband band = new PassbandFinder(bandPass(q)).find(1, 1e6);
-        assertEquals(1, band.peakMagnitude(), 1e-12);
+        // the peak's place is found to about 1e-6 decades, so its height to second order in that
+        assertEquals(1, band.peakMagnitude(), 1e-10);
         assertEquals(F0, band.peakHz(), 1e-6 * F0);
         double root = Math.sqrt(1 + 1 / (4 * q * q));
         double lower = F0 * (root - 1 / (2 * q));

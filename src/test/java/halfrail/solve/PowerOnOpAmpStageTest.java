@@ -83,7 +83,10 @@ class PowerOnOpAmpStageTest {
             highest = Math.max(highest, v);
         }
         double limit = VCC - SWING_HEADROOM;
-        assertTrue(highest <= limit + 1e-6 && highest >= limit - 2 * MnaSystem.KNEE_VOLTS, "highest " + highest);
+        // The limiter's target never passes the limit; the output, arriving within the unity-gain
+        // time constant, may step past it by the integration's local error (relative 1e-4).
+        double overshoot = PowerOnOptions.DEFAULT_RELATIVE_TOLERANCE * limit;
+        assertTrue(highest <= limit + overshoot && highest >= limit - 2 * MnaSystem.KNEE_VOLTS, "highest " + highest);
         // settle-up cannot end before the output has left the rail: the rail is 3 V from the final value
         assertTrue(result.settleTimeSeconds().orElseThrow() > rail.lastOnRailSeconds().orElseThrow());
     }

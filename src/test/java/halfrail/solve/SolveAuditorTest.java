@@ -103,7 +103,7 @@ class SolveAuditorTest {
         }
         PowerOnResult bad = new PowerOnResult(r.system(), r.finalPoint(), r.timesSeconds(), xs, orders, restarts,
                 r.statistics(), r.ending(), r.settleBandVolts(), r.watchedNodes(), r.settled(), r.settleTimeSeconds(),
-                r.railTimes(), r.loadSteps());
+                r.railTimes(), r.loadSteps(), r.oscillation());
         java.util.List<String> p = SolveAuditor.problems(bad);
         assertFalse(p.isEmpty());
         assertTrue(p.get(0).contains("KCL fails"), p.get(0));

@@ -476,7 +476,8 @@ public final class ReportPictures {
         } else {
             g.setFont(BOLD);
             g.setColor(Palette.CLIPPED);
-            g.drawString("not settled within " + Fmt.seconds(p.simulatedSeconds()), (float) f.left + 8,
+            g.drawString(p.oscillation().map(o -> "keeps oscillating, period " + Fmt.seconds(o.periodSeconds()))
+                    .orElse("not settled within " + Fmt.seconds(p.simulatedSeconds())), (float) f.left + 8,
                     (float) f.top + 30);
         }
 
