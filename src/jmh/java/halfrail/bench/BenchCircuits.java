@@ -7,6 +7,7 @@ import halfrail.design.Design;
 import halfrail.design.DesignCircuit;
 import halfrail.design.DesignCircuits;
 import halfrail.design.Stage;
+import halfrail.design.StageKind;
 import halfrail.io.DesignFiles;
 
 import java.nio.file.Path;
@@ -31,8 +32,12 @@ final class BenchCircuits {
     /**
      * A benchmark case by name: {@code chain-N} ({@link #chain}), {@code scaling-N}
      * ({@link #scalingChain}), a sample design's file name without {@code .json} (its nominal
-     * circuit), or {@code generated-N}: the recorder preamp sample with its stages repeated up
-     * to N stages.
+     * circuit), {@code generated-N}: the recorder preamp sample with its stages repeated up
+     * to N stages (gain 48 each, all on the sample's soft reference: from three stages on the
+     * chain motorboats, and the power-on run ends on the recognised oscillation), or
+     * {@code alternating-N}: N stages alternating the sample's gain-48 stage and an inverting
+     * pad of gain −1/48 (47 kΩ in, 1 kΩ feedback), a chain that does real work at every stage
+     * and settles like the sample.
      */
     static Case named(String name) {
         if (name.startsWith("chain-")) {
@@ -41,7 +46,8 @@ final class BenchCircuits {
         if (name.startsWith("scaling-")) {
             return new Case(name, scalingChain(Integer.parseInt(name.substring(8))), "VSIG", "load", null);
         }
-        Design d = name.startsWith("generated-") ? generated(Integer.parseInt(name.substring(10))) : sample(name);
+        Design d = name.startsWith("generated-") ? generated(Integer.parseInt(name.substring(10)))
+                : name.startsWith("alternating-") ? alternating(Integer.parseInt(name.substring(12))) : sample(name);
         DesignCircuit dc = DesignCircuits.nominal(d);
         return new Case(name, dc.circuit(), dc.signalSource(), dc.loadNode(), d);
     }
@@ -62,6 +68,21 @@ final class BenchCircuits {
         }
         return new Design(base.name() + " × " + stages, base.description(), base.supply(), base.reference(), list,
                 base.source(), base.load(), base.thresholds(), base.powerOnRampSeconds());
+    }
+
+    /** The recorder preamp's stage alternated with an inverting pad of gain −1/48, up to {@code stages} stages. */
+    static Design alternating(int stages) {
+        Design base = sample("handheld-recorder-mic-preamp");
+        Stage s = base.stages().get(0);
+        List<Stage> list = new ArrayList<>();
+        for (int i = 0; i < stages; i++) {
+            list.add(i % 2 == 0
+                    ? new Stage(s.name() + "-" + (i + 1), s.kind(), s.opAmp(), s.feedbackOhms(), s.legOhms(),
+                    s.legCapacitor(), s.inputCapacitor(), true)
+                    : new Stage("pad-" + (i + 1), StageKind.INVERTING, s.opAmp(), 1e3, 47e3, null,
+                    s.inputCapacitor(), true));
+        }
+        return base.withStages(list);
     }
 
     /** Op-amp used in every generated stage: a representative single-supply part. */

@@ -54,6 +54,7 @@ public final class CircuitAnalysis {
 
     static final String REST_NEAR_RAIL = "REST_NEAR_RAIL";
     static final String NOT_SETTLED = "NOT_SETTLED";
+    static final String KEEPS_OSCILLATING = PowerOn.OSCILLATES;
     static final String ANALYSIS_FAILED = "ANALYSIS_FAILED";
 
     /**
@@ -128,7 +129,16 @@ public final class CircuitAnalysis {
                     PowerOnResult r = PowerOnTransient.run(circuit, powerOnOptions(circuit, op, options));
                     settled = r.settled();
                     settle = r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty());
-                    if (!settled) {
+                    if (r.oscillation().isPresent()) {
+                        PowerOnResult.Oscillation o = r.oscillation().get();
+                        // A warning, not a failure: a netlist may be an oscillator on purpose.
+                        findings.add(Finding.of(KEEPS_OSCILLATING, Severity.WARN, "after power-on " + o.node()
+                                        + " keeps swinging " + Quantities.volts(o.peakToPeakVolts())
+                                        + " peak to peak with a period of " + Quantities.seconds(o.periodSeconds())
+                                        + " (" + Quantities.hertz(o.frequencyHz()) + "); it never settles",
+                                List.of(), "if it is not meant to oscillate, look for a loop with gain round it: "
+                                        + "positive feedback, or a shared bias or supply node with too little decoupling"));
+                    } else if (!settled) {
                         findings.add(Finding.of(NOT_SETTLED, Severity.WARN, "the circuit had not settled within "
                                         + Quantities.volts(r.settleBandVolts()) + " of its operating point after "
                                         + Quantities.seconds(POWER_ON_STOP_SECONDS) + " of power-on",

@@ -173,6 +173,23 @@ class CheckCommandTest {
     }
 
     @Test
+    @DisplayName("an op-amp astable keeps oscillating after power-on: a warning with its period, "
+            + "T = 2RC·ln 3 = 2.2 ms for a divider of one half (Sedra and Smith, Microelectronic Circuits, astable "
+            + "multivibrator; from memory)")
+    void anAstableKeepsOscillating(@TempDir Path dir) throws IOException {
+        Path f = write(dir, "astable.cir", "astable\nV1 vcc 0 9\nVREF ref 0 4.5\nR1 out inn 10k\nC1 inn ref 100n\n"
+                + "R2 out inp 10k\nR3 inp ref 10k\nX1 inp inn vcc 0 out fast\n"
+                + ".model fast opamp sr=10meg swing_low=0.5 swing_high=0.5\n.end\n");
+        Run r = run("check", "--format", "json", f.toString());
+        assertEquals(ExitCodes.PASS, r.code(), r.err());
+        assertEquals(List.of("KEEPS_OSCILLATING"), codes(r.file(0)));
+        JsonNode finding = r.file(0).get("findings").get(0);
+        assertEquals("warn", finding.get("severity").asText());
+        assertTrue(finding.get("message").asText().contains("2.2"), finding.get("message").asText());
+        assertTrue(r.file(0).get("settleTime").isNull());
+    }
+
+    @Test
     @DisplayName("an input above the common-mode range fails")
     void anInputAboveTheCommonModeRangeFails(@TempDir Path dir) throws IOException {
         // Follower biased at 5 V · 4k / 5k = 4 V; the inputs reach only to 5 − 1.5 = 3.5 V.
