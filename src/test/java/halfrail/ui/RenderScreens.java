@@ -92,6 +92,24 @@ class RenderScreens {
     }
 
     @Test
+    void rendersThePowerOnPlotOfAChainThatMotorboats() throws Exception {
+        // three of the recorder preamp's gain-48 stages on its soft reference keep oscillating
+        halfrail.design.Design base = halfrail.io.DesignFiles.read(Path.of("samples", "handheld-recorder-mic-preamp.json"));
+        java.util.List<halfrail.design.Stage> stages = new java.util.ArrayList<>();
+        for (int i = 1; i <= 3; i++) {
+            halfrail.design.Stage st = base.stages().get(0);
+            stages.add(new halfrail.design.Stage(st.name() + "-" + i, st.kind(), st.opAmp(), st.feedbackOhms(),
+                    st.legOhms(), st.legCapacitor(), st.inputCapacitor(), true));
+        }
+        Path file = render(base.withStages(stages), v -> {
+            v.middleSplit().setDividerPositions(0.45);
+            v.findings().list().getSelectionModel().select(0);
+            v.bottomTabs().getSelectionModel().select(2);
+        }, "power-on-oscillating.png");
+        assertTrue(Files.size(file) > 10_000);
+    }
+
+    @Test
     void rendersTheResponsePlot() throws Exception {
         Path file = render(SampleDesigns.instrumentBoost(), v -> {
             v.middleSplit().setDividerPositions(0.45);
