@@ -36,6 +36,8 @@ final class PassbandFinder {
      * spends solves: at 1e-10 they were about a fifth of a design's AC factorisations.
      */
     static final double PEAK_ABSOLUTE_TOLERANCE_DECADES = 1e-6;
+    /** Where the probe beside a falling end of the range sits, as a fraction of one grid step. */
+    static final double EDGE_PROBE_FRACTION = 1e-3;
     /** Relative accuracy of the corner solve on log10 f. */
     static final double CORNER_RELATIVE_ACCURACY = 1e-14;
     /** Absolute accuracy of the corner solve on log10 f, decades (about 2e-13 relative in f). */
@@ -95,10 +97,12 @@ final class PassbandFinder {
         if (peak == 0) {
             return new AcPassband(Math.pow(10, uPeak), 0, OptionalDouble.empty(), OptionalDouble.empty());
         }
-        UnivariatePointValuePair refined = refinePeak(u[Math.max(0, best - 1)], u[Math.min(m - 1, best + 1)], uPeak);
-        if (refined.getValue() > peak) {
-            uPeak = refined.getPoint();
-            peak = refined.getValue();
+        if (!atFallingEdge(u, mag, best)) {
+            UnivariatePointValuePair refined = refinePeak(u[Math.max(0, best - 1)], u[Math.min(m - 1, best + 1)], uPeak);
+            if (refined.getValue() > peak) {
+                uPeak = refined.getPoint();
+                peak = refined.getValue();
+            }
         }
         if (!lowerCorner && !upperCorner) {
             return new AcPassband(Math.pow(10, uPeak), peak, OptionalDouble.empty(), OptionalDouble.empty());
@@ -130,6 +134,25 @@ final class PassbandFinder {
             last = u[k];
         }
         return new AcPassband(Math.pow(10, uPeak), peak, lower, upper);
+    }
+
+    /**
+     * Whether the grid's largest value lies at an end of the range with |H| falling away from it
+     * into the range, both to the next grid point and just inside the end (a probe
+     * {@link #EDGE_PROBE_FRACTION} of a grid step in): then that end is the peak over the range
+     * itself, exactly, and Brent's search, which creeps towards a bound of its interval in a dozen
+     * evaluations, is spared. A high-pass seen across its capacitor or a low-pass at its output
+     * peaks at an end of the band this way.
+     */
+    private boolean atFallingEdge(double[] u, double[] mag, int best) {
+        int m = u.length;
+        if (best == 0 && mag[1] < mag[0]) {
+            return at(u[0] + EDGE_PROBE_FRACTION * (u[1] - u[0])) <= mag[0];
+        }
+        if (best == m - 1 && mag[m - 2] < mag[m - 1]) {
+            return at(u[m - 1] - EDGE_PROBE_FRACTION * (u[m - 1] - u[m - 2])) <= mag[m - 1];
+        }
+        return false;
     }
 
     private double at(double log10Hz) {

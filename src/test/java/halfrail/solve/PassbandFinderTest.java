@@ -42,6 +42,26 @@ class PassbandFinderTest {
     }
 
     @Test
+    @DisplayName("a first-order high-pass peaks at the top of the range and a low-pass at the bottom, exactly, "
+            + "with one evaluation beyond the grid (|H| = 1/√(1 + (fc/f)²) and 1/√(1 + (f/fc)²), any circuits text)")
+    void monotoneResponsesPeakAtTheEndOfTheRange() {
+        double fc = 100;
+        int[] calls = {0};
+        AcPassband high = new PassbandFinder(f -> {
+            calls[0]++;
+            return 1 / Math.sqrt(1 + (fc / f) * (fc / f));
+        }).find(20, 20e3, false, false);
+        assertEquals(20e3, high.peakHz(), 1e-9 * 20e3);
+        assertEquals(1 / Math.sqrt(1 + (fc / 20e3) * (fc / 20e3)), high.peakMagnitude(), 1e-15);
+        // the grid: ceil(3 decades · 20 per decade) + 1 points, then one probe just inside the end
+        int grid = (int) Math.ceil(3 * AcAnalysis.GRID_POINTS_PER_DECADE) + 1;
+        assertEquals(grid + 1, calls[0]);
+        AcPassband low = new PassbandFinder(f -> 1 / Math.sqrt(1 + (f / fc) * (f / fc))).find(20, 20e3, false, false);
+        assertEquals(20, low.peakHz(), 1e-9 * 20);
+        assertEquals(1 / Math.sqrt(1 + (20 / fc) * (20 / fc)), low.peakMagnitude(), 1e-15);
+    }
+
+    @Test
     void aFlatResponseHasNoCorners() {
         AcPassband band = new PassbandFinder(f -> 2.5).find(10, 1e5);
         assertEquals(2.5, band.peakMagnitude());
