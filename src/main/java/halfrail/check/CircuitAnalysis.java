@@ -101,7 +101,7 @@ public final class CircuitAnalysis {
             findings.add(Finding.of(ANALYSIS_FAILED, Severity.FAIL, "no DC operating point (" + e.kind() + "): "
                     + e.getMessage(), List.of(), "look for values far outside the usual range"));
             return new CircuitReport(floating, volts, List.of(), OptionalDouble.empty(), OptionalDouble.empty(),
-                    false, OptionalDouble.empty(), findings);
+                    false, OptionalDouble.empty(), findings, Optional.empty());
         }
         for (String n : circuit.nodes()) {
             volts.put(n, floatingSet.contains(n) ? null : op.voltage(n));
@@ -111,6 +111,7 @@ public final class CircuitAnalysis {
         OptionalDouble upper = OptionalDouble.empty();
         boolean settled = false;
         OptionalDouble settle = OptionalDouble.empty();
+        Optional<PowerOnResult.Oscillation> oscillation = Optional.empty();
         if (floating.isEmpty()) {
             Optional<String> input = options.input().or(() -> onlyAcSource(circuit));
             if (input.isPresent() && options.output().isPresent()) {
@@ -129,6 +130,7 @@ public final class CircuitAnalysis {
                     PowerOnResult r = PowerOnTransient.run(circuit, powerOnOptions(circuit, op, options));
                     settled = r.settled();
                     settle = r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty());
+                    oscillation = r.oscillation();
                     if (r.oscillation().isPresent()) {
                         PowerOnResult.Oscillation o = r.oscillation().get();
                         // A warning, not a failure: a netlist may be an oscillator on purpose.
@@ -150,7 +152,7 @@ public final class CircuitAnalysis {
                 }
             }
         }
-        return new CircuitReport(floating, volts, op.opAmps(), lower, upper, settled, settle, findings);
+        return new CircuitReport(floating, volts, op.opAmps(), lower, upper, settled, settle, findings, oscillation);
     }
 
     private static PowerOnOptions powerOnOptions(Circuit circuit, OperatingPoint op, Options options) {

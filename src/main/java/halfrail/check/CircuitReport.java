@@ -1,11 +1,14 @@
 package halfrail.check;
 
+import halfrail.solve.PowerOnResult;
+
 import halfrail.solve.OpAmpState;
 
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.OptionalDouble;
 
 /**
@@ -19,11 +22,14 @@ import java.util.OptionalDouble;
  * @param settled        whether the power-on transient settled within its run (false when it was not run)
  * @param settleSeconds  the settle-up time, s, when it settled
  * @param findings       every finding, most serious first
+ * @param oscillation    a node that kept oscillating after power-on, when the run saw one
  */
 public record CircuitReport(List<String> floating, Map<String, Double> nodeVolts, List<OpAmpState> opAmps,
                             OptionalDouble lowerCornerHz, OptionalDouble upperCornerHz, boolean settled,
-                            OptionalDouble settleSeconds, List<Finding> findings) {
+                            OptionalDouble settleSeconds, List<Finding> findings,
+                            Optional<PowerOnResult.Oscillation> oscillation) {
     public CircuitReport {
+        oscillation = oscillation == null ? Optional.empty() : oscillation;
         floating = List.copyOf(floating);
         nodeVolts = Collections.unmodifiableMap(new LinkedHashMap<>(nodeVolts));
         opAmps = List.copyOf(opAmps);

@@ -4,6 +4,7 @@ import halfrail.circuit.Circuit;
 import halfrail.check.CircuitAnalysis;
 import halfrail.check.DesignAnalysis;
 import halfrail.check.DesignReport;
+import halfrail.check.PowerOnReport;
 import halfrail.check.StageReport;
 import halfrail.check.SwingReport;
 import halfrail.design.Design;
@@ -201,7 +202,7 @@ public final class CheckCommand implements Callable<Integer> {
         Double settle = r.powerOn().map(p -> boxed(p.settleSeconds())).orElse(null);
         String load = DesignCircuits.nominal(design).loadNode();
         return new FileReport(name, design.name(), Optional.of(load), r.nodeVolts(), rows, r.floatingNodes(), corner,
-                settle, r.findings(), List.of());
+                settle, r.powerOn().flatMap(PowerOnReport::oscillation), r.findings(), List.of());
     }
 
     /** Read a design file; its problems are bad input naming the file and JSON path. */
@@ -249,7 +250,7 @@ public final class CheckCommand implements Callable<Integer> {
         List<OpAmpRow> rows = r.opAmps().stream().map(CheckCommand::row).toList();
         List<String> notes = netlist.notes().stream().map(Netlist.Note::toString).toList();
         return new FileReport(name, circuit.title(), outputNode, r.nodeVolts(), rows, r.floating(),
-                boxed(r.lowerCornerHz()), boxed(r.settleSeconds()), r.findings(), notes);
+                boxed(r.lowerCornerHz()), boxed(r.settleSeconds()), r.oscillation(), r.findings(), notes);
     }
 
     static OpAmpRow row(OpAmpState s) {

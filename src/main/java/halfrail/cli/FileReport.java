@@ -2,6 +2,7 @@ package halfrail.cli;
 
 import halfrail.check.Finding;
 import halfrail.check.Severity;
+import halfrail.solve.PowerOnResult;
 
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -21,14 +22,16 @@ import java.util.Optional;
  * @param floating       nodes with no DC path, in circuit order
  * @param lowerCornerHz  lower −3 dB point of the response in Hz; null when there is none or it could not be found
  * @param settleSeconds  power-on settle-up time in s; null when the circuit did not settle or was not run
+ * @param oscillation    the node that kept oscillating after power-on, with its period and swing, when one did
  * @param findings       the findings, worst first
  * @param notes          what the reader accepted without acting on it
  */
 public record FileReport(String file, String title, Optional<String> outputNode, Map<String, Double> nodeVolts,
                          List<OpAmpRow> opAmps, List<String> floating, Double lowerCornerHz, Double settleSeconds,
-                         List<Finding> findings, List<String> notes) {
+                         Optional<PowerOnResult.Oscillation> oscillation, List<Finding> findings, List<String> notes) {
 
     public FileReport {
+        oscillation = oscillation == null ? Optional.empty() : oscillation;
         nodeVolts = Collections.unmodifiableMap(new LinkedHashMap<>(nodeVolts));
         opAmps = List.copyOf(opAmps);
         floating = List.copyOf(floating);

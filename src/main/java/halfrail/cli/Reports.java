@@ -54,8 +54,11 @@ final class Reports {
                     .append('\n');
             b.append("  lower corner: ").append(r.lowerCornerHz() == null ? "none found"
                     : String.format(Locale.ROOT, "%.4g Hz", r.lowerCornerHz())).append('\n');
-            b.append("  settle-up: ").append(r.settleSeconds() == null ? "not settled or not run"
-                    : String.format(Locale.ROOT, "%.4g s", r.settleSeconds())).append('\n');
+            b.append("  settle-up: ").append(r.settleSeconds() != null
+                    ? String.format(Locale.ROOT, "%.4g s", r.settleSeconds())
+                    : r.oscillation().map(w -> String.format(Locale.ROOT,
+                    "keeps oscillating at %s (period %.4g s, %.4g V peak to peak)", w.node(), w.periodSeconds(),
+                    w.peakToPeakVolts())).orElse("not settled or not run")).append('\n');
             if (r.findings().isEmpty()) {
                 b.append("  findings: none\n");
             } else {
@@ -182,6 +185,14 @@ final class Reports {
             r.floating().forEach(floating::add);
             f.put("lowerCornerHz", r.lowerCornerHz());
             f.put("settleTime", r.settleSeconds());
+            if (r.oscillation().isPresent()) {
+                ObjectNode w = f.putObject("oscillation");
+                w.put("node", r.oscillation().get().node());
+                w.put("periodSeconds", r.oscillation().get().periodSeconds());
+                w.put("peakToPeakVolts", r.oscillation().get().peakToPeakVolts());
+            } else {
+                f.putNull("oscillation");
+            }
             ArrayNode findings = f.putArray("findings");
             for (Finding x : r.findings()) {
                 ObjectNode n = findings.addObject();

@@ -187,6 +187,13 @@ class CheckCommandTest {
         assertEquals("warn", finding.get("severity").asText());
         assertTrue(finding.get("message").asText().contains("2.2"), finding.get("message").asText());
         assertTrue(r.file(0).get("settleTime").isNull());
+        JsonNode o = r.file(0).get("oscillation");
+        assertEquals("out", o.get("node").asText());
+        // T = 2RC·ln((1 + β)/(1 − β)) = 2 · 10 kΩ · 100 nF · ln 3 = 2.197 ms, β = 1/2
+        assertEquals(2 * 10e3 * 100e-9 * Math.log(3), o.get("periodSeconds").asDouble(), 0.02 * 2.197e-3);
+        // rail to rail: 9 V less 0.5 V of swing headroom at each end
+        assertEquals(8, o.get("peakToPeakVolts").asDouble(), 0.2);
+        assertTrue(run("check", f.toString()).out().contains("keeps oscillating at out"));
     }
 
     @Test
