@@ -22,9 +22,9 @@ import java.util.List;
  *
  * <p>The signal peak comes from one small-signal analysis at this operating point (the peak of
  * the passband response from the source to the output over the design's band, times the source
- * peak, reduced behind a clipping stage exactly as {@link DesignAnalysis} reduces it: the demanded
- * peak of {@link SignalEnvelope}) and is then reused at every other supply voltage and every tolerance build: the signal
- * gain is set by resistor ratios and hardly moves with the supply, and solving an AC response
+ * peak, reduced behind a clipping stage exactly as {@link DesignAnalysis} reduces it: the
+ * demanded peak of {@link SignalEnvelope}) and is then reused at every other supply voltage and
+ * every tolerance build: the signal gain is set by resistor ratios and hardly moves with the supply, and solving an AC response
  * per build would cost more than the DC solve it accompanies. Headroom figures of the studies are
  * therefore "at the nominal signal gain".
  */
