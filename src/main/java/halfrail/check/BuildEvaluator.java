@@ -119,8 +119,8 @@ final class BuildEvaluator {
             double out = at(x, outIndex[k]);
             double low = at(x, vNegIndex[k]) + p.swingLowVolts();
             double high = at(x, vPosIndex[k]) - p.swingHighVolts();
-            SwingReport r = SwingReport.of(nominal.supplyVolts, out, low, high, nominal.signalPeakVolts[k],
-                    nominal.sourcePeakVolts, system.saturated(x, o.name()));
+            SwingReport r = nominal.envelope.swing(k, nominal.supplyVolts, out, low, high,
+                    system.saturated(x, o.name()));
             quiescentVolts[k] = r.quiescentVolts();
             headroomDb[k] = r.headroomDbOrInfinite();
             saturated[k] = r.saturated();

@@ -33,7 +33,8 @@ final class CapacitorVoltage implements DesignCheck {
                 double needed = c.worstVolts() * c.ratedVolts() / c.deratedVolts();
                 out.add(Finding.of(OVER, Severity.FAIL, c.element() + " sees up to " + Quantities.volts(c.worstVolts())
                                 + " (DC plus signal peak over the supply range), above its derated "
-                                + Quantities.volts(c.deratedVolts()) + " (rated " + Quantities.volts(c.ratedVolts()) + ")",
+                                + Quantities.volts(c.deratedVolts()) + " (rated " + Quantities.volts(c.ratedVolts()) + ")"
+                                + SignalEnvelope.drivenNote(c.drivenByClipped()),
                         List.of(c.designPath()), suggestion(c, needed)));
             }
         }

@@ -34,7 +34,7 @@ final class CommonMode implements DesignCheck {
                                 + Quantities.volts(low ? s.inPlusVolts() - s.inputSignalPeakVolts()
                                 : s.inPlusVolts() + s.inputSignalPeakVolts())
                                 + ", outside the common-mode range " + Quantities.volts(s.commonModeLowVolts()) + " to "
-                                + Quantities.volts(s.commonModeHighVolts()),
+                                + Quantities.volts(s.commonModeHighVolts()) + SignalEnvelope.drivenNote(s.drivenByClipped()),
                         List.of(s.designPath() + ".opAmp"),
                         "reduce the signal at this input, or choose an op-amp with a wider common-mode range",
                         s.label(), low ? LadderLevel.COMMON_MODE_LOW : LadderLevel.COMMON_MODE_HIGH));

@@ -46,6 +46,21 @@ import java.util.OptionalDouble;
  * point, and a power-on transient. Analysis failures of the engine become findings, never
  * exceptions (a failed power-on transient costs only the power-on figures); an invalid design
  * (a {@link halfrail.design.DesignException}) is thrown, naming the field.
+ *
+ * <p>Signal peaks are clip-aware (the package's {@code SignalEnvelope} has the details). In chain
+ * order, signal stage k gets the drive factor D<sub>k</sub> (D<sub>1</sub> = 1); its demanded
+ * output peak is P<sub>k</sub> = linear peak × D<sub>k</sub>; it can deliver at most
+ * E<sub>k</sub>, the larger of its rooms above and below the rest point at the nominal supply;
+ * and it passes on D<sub>k+1</sub> = D<sub>k</sub>·min(1, E<sub>k</sub>/P<sub>k</sub>). A
+ * stage's input figures (non-inverting input, input and leg capacitors) scale by
+ * D<sub>k</sub>, its output figures (swings, headroom, full-power bandwidth, ladder envelope) are
+ * the demand P<sub>k</sub>, the output capacitor takes the drive after the last stage, and a
+ * capacitor's signal never exceeds the E of the stage that drives it; the reference's figures
+ * stay linear. {@link StageReport#drivenByClipped()} and {@link CapacitorReport#drivenByClipped()}
+ * name the first clipping stage behind a reduced figure, and the findings about it say so. This
+ * treats clipping as a drop in the drive — the waveform's peak cannot pass the window — a
+ * describing-function-like bound, not a waveform simulation; with nothing clipping every figure
+ * is the linear one.
  */
 public final class DesignAnalysis {
     /** Code of the finding that stands for an engine failure; the report then holds no numbers. */
@@ -158,17 +173,19 @@ public final class DesignAnalysis {
             double bandHigh = design.source().bandHighHz();
             String sig = nominal.signalSource();
 
+            // Signal peaks along the chain, each stage's drive reduced by the clipping of those before it.
+            SignalEnvelope envelope = SignalEnvelope.of(nominal, op, ac, design.source());
             List<StageReport> stages = new ArrayList<>();
             List<Ladder> ladders = new ArrayList<>();
-            for (StageNodes sn : nominal.opAmps()) {
+            List<StageNodes> opAmps = nominal.opAmps();
+            for (int k = 0; k < opAmps.size(); k++) {
+                StageNodes sn = opAmps.get(k);
                 OpAmpState st = op.opAmp(sn.opAmp()).orElseThrow();
                 OpAmpState stLow = low.opAmp(sn.opAmp()).orElseThrow();
                 OpAmpState stHigh = high.opAmp(sn.opAmp()).orElseThrow();
                 OpAmpParams p = ((OpAmp) nominal.circuit().element(sn.opAmp()).orElseThrow()).params();
-                double outGain = ac.peakMagnitude(sig, sn.out(), bandLow, bandHigh);
-                double inGain = ac.peakMagnitude(sig, sn.inPlus(), bandLow, bandHigh);
-                double signalPeak = outGain * sourcePeak;
-                double inputPeak = inGain * sourcePeak;
+                double signalPeak = envelope.outputPeakVolts(k);
+                double inputPeak = envelope.inputPeakVolts(k);
                 double centre = Math.sqrt(bandLow * bandHigh);
                 double stageGain;
                 if (sn.signal()) {
@@ -180,12 +197,12 @@ public final class DesignAnalysis {
                 } else {
                     stageGain = 0;
                 }
-                SwingReport swNom = SwingReport.of(nominal.supplyVolts(), st.outputVolts(), st.swingLowVolts(),
-                        st.swingHighVolts(), signalPeak, sourcePeak, st.saturated());
-                SwingReport swLow = SwingReport.of(supply.lowVolts(), stLow.outputVolts(), stLow.swingLowVolts(),
-                        stLow.swingHighVolts(), signalPeak, sourcePeak, stLow.saturated());
-                SwingReport swHigh = SwingReport.of(supply.highVolts(), stHigh.outputVolts(), stHigh.swingLowVolts(),
-                        stHigh.swingHighVolts(), signalPeak, sourcePeak, stHigh.saturated());
+                SwingReport swNom = envelope.swing(k, nominal.supplyVolts(), st.outputVolts(), st.swingLowVolts(),
+                        st.swingHighVolts(), st.saturated());
+                SwingReport swLow = envelope.swing(k, supply.lowVolts(), stLow.outputVolts(), stLow.swingLowVolts(),
+                        stLow.swingHighVolts(), stLow.saturated());
+                SwingReport swHigh = envelope.swing(k, supply.highVolts(), stHigh.outputVolts(), stHigh.swingLowVolts(),
+                        stHigh.swingHighVolts(), stHigh.saturated());
                 double biasGain = linear.gainFromNode(nominal.referenceNode(), sn.out());
                 if (!sn.signal()) {
                     biasGain = linear.gainFromNode("ref", sn.out());
@@ -204,7 +221,7 @@ public final class DesignAnalysis {
                 stages.add(new StageReport(sn.label(), sn.designPath(), sn.opAmp(), sn.signal(), st.inPlusVolts(),
                         st.inMinusVolts(), st.commonModeLowVolts(), st.commonModeHighVolts(), st.commonModeOk(),
                         inputPeak, cmPeaks, swNom, swLow, swHigh, stageGain, biasGain, drift, byCap, biasShift,
-                        fullPower, supplyOk, List.of()));
+                        fullPower, supplyOk, envelope.driveFactor(k), envelope.clippedBefore(k), List.of()));
                 ladders.add(new Ladder(sn.label(), sn.designPath(), nominal.supplyVolts(), supply.lowVolts(),
                         st.swingLowVolts(), st.swingHighVolts(), stLow.swingHighVolts(), st.commonModeLowVolts(),
                         st.commonModeHighVolts(), op.voltage(nominal.referenceNode()), st.outputVolts(),
@@ -218,7 +235,9 @@ public final class DesignAnalysis {
                 double dc = op.voltage(c.plus()) - op.voltage(c.minus());
                 double dcLow = low.voltage(c.plus()) - low.voltage(c.minus());
                 double dcHigh = high.voltage(c.plus()) - high.voltage(c.minus());
-                double sigPeak = ac.peakMagnitude(sig, c.plus(), c.minus(), bandLow, bandHigh) * sourcePeak;
+                SignalEnvelope.CapacitorSignal signal = envelope.capacitor(nominal.designPath(c.name()),
+                        ac.peakMagnitude(sig, c.plus(), c.minus(), bandLow, bandHigh) * sourcePeak);
+                double sigPeak = signal.peakVolts();
                 double worst = Math.max(Math.abs(dc), Math.max(Math.abs(dcLow), Math.abs(dcHigh))) + sigPeak;
                 double override = design.thresholds().capacitorDeratingOverride();
                 double derated = override > 0 ? override * c.ratedVolts() : tech.deratedVolts(c.ratedVolts());
@@ -227,7 +246,7 @@ public final class DesignAnalysis {
                         ? OptionalDouble.of(1 / (2 * Math.PI * seen.getAsDouble() * c.farads())) : OptionalDouble.empty();
                 double leak = tech.leakageAmps(c.farads(), c.ratedVolts(), Math.abs(dc), LeakageLevel.LIMIT);
                 capacitors.add(new CapacitorReport(c.name(), nominal.designPath(c.name()), tech.id(), c.farads(), dc,
-                        sigPeak, worst, c.ratedVolts(), derated, c.polarised(), seen, corner, leak));
+                        sigPeak, worst, c.ratedVolts(), derated, c.polarised(), seen, corner, leak, signal.drivenByClipped()));
             }
 
             ChainReport chain = chain(ac);

@@ -26,12 +26,12 @@ final class Headroom implements DesignCheck {
                                 + Quantities.volts(n.signalPeakVolts()) + " peak at the output clips on the "
                                 + side(n) + " side at " + Quantities.volts(n.supplyVolts()) + ": only "
                                 + Quantities.volts(Math.max(0, Math.min(n.availableLowVolts(), n.availableHighVolts())))
-                                + " of room (" + db(n) + ")",
+                                + " of room (" + db(n) + ")" + SignalEnvelope.drivenNote(s.drivenByClipped()),
                         List.of(s.designPath()), suggestion(n), s.label(), LadderLevel.SIGNAL_ENVELOPE));
             } else if (n.headroomDb().isPresent() && n.headroomDb().getAsDouble() < margin) {
                 out.add(Finding.at(LOW, Severity.WARN, s.label() + ": headroom at the nominal signal is "
                                 + db(n) + " on the " + side(n) + " side, below the "
-                                + Quantities.db(margin) + " asked for",
+                                + Quantities.db(margin) + " asked for" + SignalEnvelope.drivenNote(s.drivenByClipped()),
                         List.of(s.designPath()), suggestion(n), s.label(), LadderLevel.SIGNAL_ENVELOPE));
             }
             SwingReport end = s.endPoint();
@@ -40,7 +40,8 @@ final class Headroom implements DesignCheck {
                                 + Quantities.volts(end.supplyVolts()) + ", the nominal signal clips on the " + side(end)
                                 + " side (" + (end.saturated() ? "the output sits on a rail" : db(end))
                                 + "); the largest source level that fits there is "
-                                + Quantities.volts(end.largestSourcePeakVolts().orElse(0)) + " peak",
+                                + Quantities.volts(end.largestSourcePeakVolts().orElse(0)) + " peak"
+                                + SignalEnvelope.drivenNote(s.drivenByClipped()),
                         List.of(s.designPath(), "supply"),
                         "lower the stage gain, choose an op-amp with outputs closer to the rails, or a supply that ends higher",
                         s.label(), LadderLevel.END_POINT_SUPPLY));

@@ -18,7 +18,9 @@ import java.util.OptionalDouble;
  * @param commonModeHighVolts highest usable input voltage
  * @param midRailVolts      the reference the stages are biased from
  * @param quiescentVolts    the output at rest
- * @param envelopeLowVolts  lowest excursion of the nominal signal around the rest point (unclipped)
+ * @param envelopeLowVolts  lowest excursion of the nominal signal around the rest point: the rest point less the
+ *                          demanded peak (unclipped by this stage's window; reduced behind an earlier clipping
+ *                          stage, see {@link DesignAnalysis})
  * @param envelopeHighVolts highest excursion of the nominal signal
  * @param spreadLowVolts    lowest rest point over tolerances, when a tolerance analysis was run
  * @param spreadHighVolts   highest rest point over tolerances, when a tolerance analysis was run

@@ -22,8 +22,9 @@ import java.util.List;
  *
  * <p>The signal peak comes from one small-signal analysis at this operating point (the peak of
  * the passband response from the source to the output over the design's band, times the source
- * peak) and is then reused at every other supply voltage and every tolerance build: the signal
- * gain is set by resistor ratios and hardly moves with the supply, and solving an AC response
+ * peak, reduced behind a clipping stage exactly as {@link DesignAnalysis} reduces it: the
+ * demanded peak of {@link SignalEnvelope}) and is then reused at every other supply voltage and
+ * every tolerance build: the signal gain is set by resistor ratios and hardly moves with the supply, and solving an AC response
  * per build would cost more than the DC solve it accompanies. Headroom figures of the studies are
  * therefore "at the nominal signal gain".
  */
@@ -33,9 +34,14 @@ final class NominalStudy {
     final OperatingPoint op;
     final double supplyVolts;
     final List<StageNodes> opAmps;
-    /** Nominal signal peak at each op-amp output, V, in {@link #opAmps} order. */
+    /**
+     * Nominal signal peak at each op-amp output, V, in {@link #opAmps} order: the demanded peak
+     * ({@link SignalEnvelope#outputPeakVolts}), the same figure as the design check's swing.
+     */
     final double[] signalPeakVolts;
     final double sourcePeakVolts;
+    /** The signal's peaks along the chain at {@link #op}, clip-aware; used for every later swing. */
+    final SignalEnvelope envelope;
     final double minHeadroomDb;
 
     private NominalStudy(Design design, DesignCircuit circuit, OperatingPoint op) {
@@ -46,13 +52,10 @@ final class NominalStudy {
         this.opAmps = circuit.opAmps();
         this.sourcePeakVolts = design.source().voltsPeak();
         this.minHeadroomDb = design.thresholds().minHeadroomDb();
-        AcAnalysis ac = new AcAnalysis(op);
-        double lo = design.source().bandLowHz();
-        double hi = design.source().bandHighHz();
+        envelope = SignalEnvelope.of(circuit, op, new AcAnalysis(op), design.source());
         signalPeakVolts = new double[opAmps.size()];
         for (int k = 0; k < opAmps.size(); k++) {
-            signalPeakVolts[k] = ac.peakMagnitude(circuit.signalSource(), opAmps.get(k).out(), lo, hi)
-                    * sourcePeakVolts;
+            signalPeakVolts[k] = envelope.outputPeakVolts(k);
         }
     }
 
@@ -106,8 +109,7 @@ final class NominalStudy {
     /** The swing of op-amp {@code k} at operating point {@code p} solved at {@code volts}, at the nominal signal. */
     SwingReport swing(OperatingPoint p, int k, double volts) {
         OpAmpState st = p.opAmp(opAmps.get(k).opAmp()).orElseThrow();
-        return SwingReport.of(volts, st.outputVolts(), st.swingLowVolts(), st.swingHighVolts(), signalPeakVolts[k],
-                sourcePeakVolts, st.saturated());
+        return envelope.swing(k, volts, st.outputVolts(), st.swingLowVolts(), st.swingHighVolts(), st.saturated());
     }
 
     /**

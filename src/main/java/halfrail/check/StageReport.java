@@ -2,6 +2,7 @@ package halfrail.check;
 
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.OptionalDouble;
 
 /**
@@ -16,9 +17,13 @@ import java.util.OptionalDouble;
  * @param commonModeLowVolts lowest usable input voltage at the nominal supply
  * @param commonModeHighVolts highest usable input voltage at the nominal supply
  * @param commonModeOkAtRest whether both inputs lie in the common-mode range at rest
- * @param inputSignalPeakVolts peak of the nominal signal at the non-inverting input
+ * @param inputSignalPeakVolts peak of the nominal signal at the non-inverting input: the linear figure times
+ *                           {@code driveFactor} (see {@link DesignAnalysis}: behind a clipping stage the input
+ *                           cannot swing further than that stage's output)
  * @param commonModeOkAtPeaks whether the non-inverting input stays in range at the signal peaks
- * @param nominal            swing at the nominal supply
+ * @param nominal            swing at the nominal supply; its signal peak is the demanded peak, the linear figure
+ *                           times {@code driveFactor} (unclipped by this stage's own window, so that the headroom
+ *                           says how far over it the stage is asked to go)
  * @param endPoint           swing at the lowest supply (battery end-point, low tolerance)
  * @param fresh              swing at the highest supply (fresh battery, high tolerance)
  * @param stageGain          the stage's own signal gain in the band (output over its input node), V/V magnitude
@@ -30,6 +35,11 @@ import java.util.OptionalDouble;
  * @param fullPowerHz        frequency at which the slew rate limits the nominal output swing: SR/(2π·Vpeak), Hz;
  *                           empty when the output carries no signal (nothing to slew)
  * @param supplyInRange      whether the supply, over its whole range, stays within the op-amp's specified range
+ * @param driveFactor        the fraction of the linear drive that reaches this stage, 0 to 1: the product of the
+ *                           clip factors min(1, E/P) of the signal stages before it (1 when none clips; 1 for the
+ *                           reference buffer). See {@link DesignAnalysis}
+ * @param drivenByClipped    the label of the first stage before this one that clips, when its figures are
+ *                           reduced for that reason (empty: they are the linear figures)
  * @param findingsCodes      codes of the findings that concern this op-amp
  */
 public record StageReport(String label, String designPath, String opAmp, boolean signal,
@@ -39,7 +49,8 @@ public record StageReport(String label, String designPath, String opAmp, boolean
                           SwingReport nominal, SwingReport endPoint, SwingReport fresh,
                           double stageGain, double biasGain, double leakageDriftVolts,
                           Map<String, Double> leakageDriftByCapacitor, double biasCurrentShiftVolts,
-                          OptionalDouble fullPowerHz, boolean supplyInRange, List<String> findingsCodes) {
+                          OptionalDouble fullPowerHz, boolean supplyInRange, double driveFactor,
+                          Optional<String> drivenByClipped, List<String> findingsCodes) {
     public StageReport {
         leakageDriftByCapacitor = Map.copyOf(leakageDriftByCapacitor);
         findingsCodes = List.copyOf(findingsCodes);
@@ -54,6 +65,6 @@ public record StageReport(String label, String designPath, String opAmp, boolean
         return new StageReport(label, designPath, opAmp, signal, inPlusVolts, inMinusVolts, commonModeLowVolts,
                 commonModeHighVolts, commonModeOkAtRest, inputSignalPeakVolts, commonModeOkAtPeaks, nominal, endPoint,
                 fresh, stageGain, biasGain, leakageDriftVolts, leakageDriftByCapacitor, biasCurrentShiftVolts,
-                fullPowerHz, supplyInRange, codes);
+                fullPowerHz, supplyInRange, driveFactor, drivenByClipped, codes);
     }
 }

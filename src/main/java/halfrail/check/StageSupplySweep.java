@@ -7,7 +7,8 @@ package halfrail.check;
  * @param label              the stage's name, or "reference buffer"
  * @param designPath         the stage's design path
  * @param signal             whether it carries the signal
- * @param signalPeakVolts    the nominal signal peak at its output, V (from the AC analysis at the nominal supply, reused)
+ * @param signalPeakVolts    the nominal signal peak at its output, V (from the AC analysis at the nominal supply, reused;
+ *                           behind a clipping stage the demanded peak, as {@link DesignAnalysis} reports it)
  * @param quiescentVolts     output at rest
  * @param swingLowVolts      lowest output reachable
  * @param swingHighVolts     highest output reachable

@@ -799,7 +799,9 @@ public final class Converter {
             points.add(point("nominal", last.nominal()));
             points.add(point("fresh", last.fresh()));
             points.add(point("end-point", last.endPoint()));
-            double gain = last.nominal().signalPeakVolts() / req.signal().voltsPeak();
+            // The linear gain: the reported peak is reduced by the drive factor behind a clipping stage.
+            double gain = last.driveFactor() > 0
+                    ? last.nominal().signalPeakVolts() / last.driveFactor() / req.signal().voltsPeak() : 0;
             double amps = report.battery().map(b -> b.totalAmps()).orElse(Double.NaN);
             OptionalDouble corner = report.chain().map(c -> c.lowerCornerHz()).orElse(OptionalDouble.empty());
             return new ChainFigures("single-supply conversion", points, gain, amps, 0, corner, settle.seconds());

@@ -61,7 +61,8 @@ class SwingReportTest {
         CapacitorReport c = healthy.capacitors().get(0);
         CapacitorReport infinite = new CapacitorReport(c.element(), c.designPath(), c.technology(), c.farads(),
                 c.dcVolts(), c.signalPeakVolts(), c.worstVolts(), c.ratedVolts(), c.deratedVolts(), c.polarised(),
-                c.seenOhms(), java.util.OptionalDouble.of(Double.POSITIVE_INFINITY), c.limitLeakageAmps());
+                c.seenOhms(), java.util.OptionalDouble.of(Double.POSITIVE_INFINITY), c.limitLeakageAmps(),
+                c.drivenByClipped());
         DesignReport deep = new DesignReport(healthy.design(), Optional.empty(), "", List.of(), healthy.nodeVolts(),
                 healthy.stages(), List.of(infinite), healthy.chain(), healthy.powerOn(), healthy.battery(),
                 healthy.ladders(), healthy.findings());
