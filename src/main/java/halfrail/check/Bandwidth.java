@@ -49,13 +49,14 @@ final class Bandwidth implements DesignCheck {
         }
         for (StageReport s : e.stages()) {
             if (s.signal() && s.fullPowerHz().isPresent() && s.fullPowerHz().getAsDouble() < ch.bandHighHz()) {
-                out.add(Finding.at(SLEW, Severity.WARN, s.label() + ": at " + Quantities.volts(s.nominal().signalPeakVolts())
+                double swing = s.nominal().deliveredPeakVolts();
+                out.add(Finding.at(SLEW, Severity.WARN, s.label() + ": at " + Quantities.volts(swing)
                                 + " peak the slew rate limits the output to " + Quantities.hertz(s.fullPowerHz().getAsDouble())
                                 + ", below the band's high end " + Quantities.hertz(ch.bandHighHz())
                                 + SignalEnvelope.drivenNote(s.drivenByClipped()),
                         List.of(s.designPath() + ".opAmp"), "choose an op-amp with a slew rate of at least "
                                 + String.format(java.util.Locale.ROOT, "%.2g V/µs",
-                                2 * Math.PI * ch.bandHighHz() * s.nominal().signalPeakVolts() / 1e6),
+                                2 * Math.PI * ch.bandHighHz() * swing / 1e6),
                         s.label(), LadderLevel.SIGNAL_ENVELOPE));
             }
         }

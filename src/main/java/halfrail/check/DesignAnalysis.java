@@ -212,8 +212,10 @@ public final class DesignAnalysis {
                 Map<String, Double> byCap = new LinkedHashMap<>();
                 oneLeaking.forEach((name, o) -> byCap.put(name, o.voltage(sn.out()) - outNoLeak));
                 double biasShift = op.voltage(sn.inPlus()) - noBias.voltage(sn.inPlus());
-                OptionalDouble fullPower = signalPeak > 0
-                        ? OptionalDouble.of(p.slewRateVoltsPerSecond() / (2 * Math.PI * signalPeak))
+                // The slew rate follows the swing the output makes, not a clipped stage's demand.
+                double slewPeak = swNom.deliveredPeakVolts();
+                OptionalDouble fullPower = slewPeak > 0
+                        ? OptionalDouble.of(p.slewRateVoltsPerSecond() / (2 * Math.PI * slewPeak))
                         : OptionalDouble.empty();
                 boolean supplyOk = SupplyAndRuntime.inRange(supply, p);
                 boolean cmPeaks = st.inPlusVolts() - inputPeak >= st.commonModeLowVolts()

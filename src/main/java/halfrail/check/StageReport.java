@@ -32,7 +32,8 @@ import java.util.OptionalDouble;
  * @param leakageDriftVolts  output shift between leak-free capacitors and every capacitor at its limit leakage
  * @param leakageDriftByCapacitor the same shift with only one capacitor leaking at its limit, by element name
  * @param biasCurrentShiftVolts shift of the non-inverting input caused by the op-amps' input bias currents
- * @param fullPowerHz        frequency at which the slew rate limits the nominal output swing: SR/(2π·Vpeak), Hz;
+ * @param fullPowerHz        frequency at which the slew rate limits the nominal output swing: SR/(2π·Vpeak), Vpeak the
+ *                           swing the output makes ({@link SwingReport#deliveredPeakVolts()}), Hz;
  *                           empty when the output carries no signal (nothing to slew)
  * @param supplyInRange      whether the supply, over its whole range, stays within the op-amp's specified range
  * @param driveFactor        the fraction of the linear drive that reaches this stage, 0 to 1: the product of the

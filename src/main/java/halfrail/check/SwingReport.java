@@ -46,6 +46,15 @@ public record SwingReport(double supplyVolts, double quiescentVolts, double swin
     }
 
     /**
+     * The peak the output actually swings to around its rest point, V: the signal peak, or, when
+     * that is more than the window allows, the larger room (a clipping output still runs to its
+     * limit on that side). What the slew rate has to follow.
+     */
+    public double deliveredPeakVolts() {
+        return Math.min(signalPeakVolts, Math.max(0, Math.max(availableLowVolts, availableHighVolts)));
+    }
+
+    /**
      * Headroom as a plain number for arrays of many solves (sweeps, Monte Carlo histograms), dB:
      * {@link Double#POSITIVE_INFINITY} when the output carries no signal (it never clips),
      * {@link Double#NEGATIVE_INFINITY} when there is no room at all.

@@ -160,6 +160,18 @@ class ClipAwareEnvelopeTest {
         // The ladder draws the demand around the rest point.
         Ladder l3 = r.ladders().stream().filter(l -> l.opAmp().equals("mic-3")).findFirst().orElseThrow();
         assertEquals(s3.nominal().signalPeakVolts(), l3.envelopeHighVolts() - l3.quiescentVolts(), 1e-12);
+
+        // The slew rate follows the swing the output makes: SR/(2π·Vpeak) (full-power bandwidth, any
+        // op-amp text) with mic-1's whole 0.21 V but the clipped stages' 1.48 V, not their demand.
+        assertEquals(s1.nominal().signalPeakVolts(), s1.nominal().deliveredPeakVolts(), 0.0);
+        assertEquals(deliverable(s3.nominal()), s3.nominal().deliveredPeakVolts(), 0.0);
+        double sr1 = 2 * Math.PI * s1.fullPowerHz().getAsDouble() * s1.nominal().deliveredPeakVolts();
+        for (StageReport s : List.of(s2, s3)) {
+            assertEquals(sr1, 2 * Math.PI * s.fullPowerHz().getAsDouble() * 1.48, 0.01 * sr1, s.label());
+        }
+        for (Finding f : r.findings(Bandwidth.SLEW)) {
+            assertCarries(f, Quantities.volts(1.48));
+        }
     }
 
     /**
