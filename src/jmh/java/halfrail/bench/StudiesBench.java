@@ -31,7 +31,9 @@ import java.util.concurrent.TimeUnit;
 /**
  * The design studies of the check layer: a 100-point supply sweep (target at most 5 ms) and
  * Monte Carlo of 10,000 builds, operating point and headroom each, on all cores (target at
- * most 300 ms), on a generated three-stage design and the two-stage Li-ion sample.
+ * most 300 ms), on a generated three-stage design (the preamp stage repeated: it clips from the
+ * second stage on), the two-stage Li-ion sample and the settling 4- and 12-stage
+ * {@code alternating-N} chains.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.SampleTime)
@@ -40,7 +42,7 @@ import java.util.concurrent.TimeUnit;
 @Measurement(iterations = 5, time = 2)
 @Fork(1)
 public class StudiesBench {
-    @Param({"generated-3", "li-ion-sensor-front-end"})
+    @Param({"generated-3", "li-ion-sensor-front-end", "alternating-4", "alternating-12"})
     public String design;
 
     private Design d;
