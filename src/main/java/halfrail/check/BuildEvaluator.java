@@ -113,14 +113,18 @@ final class BuildEvaluator {
         double[] x = solve(s, system);
         List<Element> elements = c.elements();
         boolean all = true;
+        double drive = 1;
         for (int k = 0; k < quiescentVolts.length; k++) {
             OpAmp o = (OpAmp) elements.get(opAmpElement[k]);
             var p = o.params();
             double out = at(x, outIndex[k]);
             double low = at(x, vNegIndex[k]) + p.swingLowVolts();
             double high = at(x, vPosIndex[k]) - p.swingHighVolts();
-            SwingReport r = nominal.envelope.swing(k, nominal.supplyVolts, out, low, high,
+            // the drive reaching stage k through this build's windows of the stages before it
+            double reaching = nominal.opAmps.get(k).signal() ? drive : 1;
+            SwingReport r = nominal.envelope.swing(k, reaching, nominal.supplyVolts, out, low, high,
                     system.saturated(x, o.name()));
+            drive = nominal.envelope.passOn(k, drive, out, low, high);
             quiescentVolts[k] = r.quiescentVolts();
             headroomDb[k] = r.headroomDbOrInfinite();
             saturated[k] = r.saturated();

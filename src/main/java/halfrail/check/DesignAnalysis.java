@@ -178,6 +178,9 @@ public final class DesignAnalysis {
             List<StageReport> stages = new ArrayList<>();
             List<Ladder> ladders = new ArrayList<>();
             List<StageNodes> opAmps = nominal.opAmps();
+            // The drives at the end-point and fresh supplies, through those supplies' windows.
+            double driveLow = 1;
+            double driveHigh = 1;
             for (int k = 0; k < opAmps.size(); k++) {
                 StageNodes sn = opAmps.get(k);
                 OpAmpState st = op.opAmp(sn.opAmp()).orElseThrow();
@@ -199,10 +202,14 @@ public final class DesignAnalysis {
                 }
                 SwingReport swNom = envelope.swing(k, nominal.supplyVolts(), st.outputVolts(), st.swingLowVolts(),
                         st.swingHighVolts(), st.saturated());
-                SwingReport swLow = envelope.swing(k, supply.lowVolts(), stLow.outputVolts(), stLow.swingLowVolts(),
-                        stLow.swingHighVolts(), stLow.saturated());
-                SwingReport swHigh = envelope.swing(k, supply.highVolts(), stHigh.outputVolts(), stHigh.swingLowVolts(),
-                        stHigh.swingHighVolts(), stHigh.saturated());
+                SwingReport swLow = envelope.swing(k, sn.signal() ? driveLow : 1, supply.lowVolts(),
+                        stLow.outputVolts(), stLow.swingLowVolts(), stLow.swingHighVolts(), stLow.saturated());
+                SwingReport swHigh = envelope.swing(k, sn.signal() ? driveHigh : 1, supply.highVolts(),
+                        stHigh.outputVolts(), stHigh.swingLowVolts(), stHigh.swingHighVolts(), stHigh.saturated());
+                driveLow = envelope.passOn(k, driveLow, stLow.outputVolts(), stLow.swingLowVolts(),
+                        stLow.swingHighVolts());
+                driveHigh = envelope.passOn(k, driveHigh, stHigh.outputVolts(), stHigh.swingLowVolts(),
+                        stHigh.swingHighVolts());
                 double biasGain = linear.gainFromNode(nominal.referenceNode(), sn.out());
                 if (!sn.signal()) {
                     biasGain = linear.gainFromNode("ref", sn.out());

@@ -106,10 +106,15 @@ final class NominalStudy {
         }
     }
 
-    /** The swing of op-amp {@code k} at operating point {@code p} solved at {@code volts}, at the nominal signal. */
+    /**
+     * The swing of op-amp {@code k} at operating point {@code p} solved at {@code volts}, at the
+     * nominal signal, with the drive that reaches it through the stages before it at {@code p}'s
+     * windows (a stage that clips only at this supply reduces what the later ones are asked for).
+     */
     SwingReport swing(OperatingPoint p, int k, double volts) {
         OpAmpState st = p.opAmp(opAmps.get(k).opAmp()).orElseThrow();
-        return envelope.swing(k, volts, st.outputVolts(), st.swingLowVolts(), st.swingHighVolts(), st.saturated());
+        return envelope.swing(k, envelope.driveAt(p, k), volts, st.outputVolts(), st.swingLowVolts(),
+                st.swingHighVolts(), st.saturated());
     }
 
     /**

@@ -160,6 +160,42 @@ final class SignalEnvelope {
     }
 
     /**
+     * The drive after signal stage {@code k} when it gets {@code driveIn} and rests at
+     * {@code quiescent} in the window {@code low} to {@code high}: driveIn·min(1, E/P) with this
+     * window's E (the same rule as at the nominal operating point); {@code driveIn} unchanged for
+     * the reference buffer. Walking the stages in order with it gives the drives at another supply
+     * or in another build, whose windows differ, without allocating.
+     */
+    double passOn(int k, double driveIn, double quiescent, double low, double high) {
+        if (!opAmps.get(k).signal()) {
+            return driveIn;
+        }
+        double demand = linearOutputVolts[k] * driveIn;
+        double e = Math.max(0, Math.max(high - quiescent, quiescent - low));
+        return demand > e ? driveIn * e / demand : driveIn;
+    }
+
+    /** The drive reaching op-amp {@code k} with the windows of operating point {@code p}: {@link #passOn} from the first stage. */
+    double driveAt(OperatingPoint p, int k) {
+        double d = 1;
+        for (int j = 0; j < k; j++) {
+            OpAmpState st = p.opAmp(opAmps.get(j).opAmp()).orElseThrow();
+            d = passOn(j, d, st.outputVolts(), st.swingLowVolts(), st.swingHighVolts());
+        }
+        return opAmps.get(k).signal() ? d : 1;
+    }
+
+    /**
+     * As {@link #swing(int, double, double, double, double, boolean)}, with the drive reaching the
+     * stage given ({@link #passOn}, {@link #driveAt}) instead of the nominal one.
+     */
+    SwingReport swing(int k, double drive, double supplyVolts, double quiescent, double low, double high,
+                      boolean saturated) {
+        return SwingReport.of(supplyVolts, quiescent, low, high, linearOutputVolts[k] * drive, sourcePeakVolts * drive,
+                saturated);
+    }
+
+    /**
      * Op-amp {@code k}'s swing with rest point {@code quiescent} and window {@code low} to
      * {@code high} at {@code supplyVolts}, at its demanded peak. Its largest fitting source level
      * stays the linear chain's (the source level at which this stage itself reaches its window,

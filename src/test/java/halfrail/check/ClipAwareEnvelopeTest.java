@@ -245,6 +245,42 @@ class ClipAwareEnvelopeTest {
     }
 
     @Test
+    void aStageThatClipsOnlyOnAFlatBatteryReducesWhatTheNextIsAskedForThere() {
+        // mic (gain 48) into the 22k/47k pad again, the source set so that mic's demand lies midway
+        // between what it can deliver on the flat pack (two AA cells at their end point) and on the
+        // nominal 3 V: at nominal nothing clips, at the end point mic clips and the pad gets E1/P1 of
+        // its linear drive there.
+        Design base = preampRepeated(1);
+        Stage pad = new Stage("pad", StageKind.INVERTING, OpAmpChoice.archetype(OpAmpArchetype.CMOS_RRIO_LOW_VOLTAGE),
+                22e3, 47e3, null, film(1e-6));
+        Design unit = withSource(base.withStages(List.of(base.stages().get(0), pad)), 1, AmplitudeUnit.VOLTS_PEAK);
+        DesignReport probe = DesignAnalysis.analyse(unit, false);
+        Linear perVolt = Linear.of(unit);
+        double eNominal = deliverable(stage(probe, "mic-1").nominal());
+        double eEnd = deliverable(stage(probe, "mic-1").endPoint());
+        assertTrue(eEnd < eNominal, "the flat pack's window is narrower: " + eEnd + " vs " + eNominal);
+        double demand = 0.5 * (eNominal + eEnd);
+        Design d = withSource(unit, demand / perVolt.outputs().get("mic-1"), AmplitudeUnit.VOLTS_PEAK);
+        DesignReport r = DesignAnalysis.analyse(d, false);
+        Linear lin = Linear.of(d);
+        StageReport mic = stage(r, "mic-1");
+        StageReport p = stage(r, "pad");
+
+        assertEquals(demand, mic.nominal().signalPeakVolts(), 1e-9);
+        assertEquals(demand, mic.endPoint().signalPeakVolts(), 1e-9);
+        assertEquals(1.0, p.driveFactor(), 0.0);
+        assertLinear(lin.outputs().get("pad"), p.nominal().signalPeakVolts(), "pad nominal");
+        assertLinear(lin.outputs().get("pad"), p.fresh().signalPeakVolts(), "pad fresh");
+        double cEnd = deliverable(mic.endPoint()) / demand;
+        assertTrue(cEnd < 1);
+        assertEquals(lin.outputs().get("pad") * cEnd, p.endPoint().signalPeakVolts(), 1e-9 * lin.outputs().get("pad"));
+        // the largest source level that fits the pad stays the linear chain's, at the end point too
+        double worseEnd = Math.min(p.endPoint().availableLowVolts(), p.endPoint().availableHighVolts());
+        assertEquals(worseEnd / lin.outputs().get("pad") * d.source().voltsPeak(),
+                p.endPoint().largestSourcePeakVolts().getAsDouble(), 1e-12);
+    }
+
+    @Test
     void aCommonModeFailureBehindAClippedStageNamesThatStage() {
         // On 5 V a CMOS stage overdriven to its 20 mV-from-the-rails window (E = 2.48 V round 2.5 V)
         // drives a DC-coupled follower on the single-supply bipolar part, whose inputs end 1.5 V below
