@@ -166,9 +166,13 @@ public final class Converter {
         }
         watched.add(dc.loadNode());
         double stop = Math.max(stopSeconds, 10 * design.powerOnRampSeconds());
+        // Run to the stop time even when a node keeps oscillating: the search compares "at least
+        // the run's length" with the settle-up limit, which a run cut short on the oscillation
+        // would understate.
         PowerOnOptions options = PowerOnOptions.of(stop)
                 .withSettleBand(design.thresholds().settleBandFraction() * dc.supplyVolts())
-                .withWatchedNodes(watched.toArray(new String[0])).withLoadNodes(dc.loadNode());
+                .withWatchedNodes(watched.toArray(new String[0])).withLoadNodes(dc.loadNode())
+                .withStopWhenOscillating(false);
         PowerOnResult r = PowerOnTransient.run(dc.circuit(), options);
         double[] times = r.timesSeconds();
         return new Settle(r.settleTimeSeconds().map(OptionalDouble::of).orElse(OptionalDouble.empty()),
