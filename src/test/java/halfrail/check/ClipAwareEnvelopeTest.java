@@ -204,14 +204,19 @@ class ClipAwareEnvelopeTest {
         }
     }
 
+    /** The recorder preamp's mic stage (gain 48) into an inverting pad of 22k/47k (0.47), at a 1 V peak source. */
+    static Design micIntoPad() {
+        Design base = preampRepeated(1);
+        Stage pad = new Stage("pad", StageKind.INVERTING, OpAmpChoice.archetype(OpAmpArchetype.CMOS_RRIO_LOW_VOLTAGE),
+                22e3, 47e3, null, film(1e-6));
+        return withSource(base.withStages(List.of(base.stages().get(0), pad)), 1, AmplitudeUnit.VOLTS_PEAK);
+    }
+
     @Test
     void aFirstStageTwentyPercentOverScalesEverythingAfterItByItsClipFactor() {
         // mic (gain 48) into an inverting pad of 22k/47k (0.47): the pad never clips, so every
         // figure after mic is the linear one times E1/P1 = 1/1.2.
-        Design base = preampRepeated(1);
-        Stage pad = new Stage("pad", StageKind.INVERTING, OpAmpChoice.archetype(OpAmpArchetype.CMOS_RRIO_LOW_VOLTAGE),
-                22e3, 47e3, null, film(1e-6));
-        Design unit = withSource(base.withStages(List.of(base.stages().get(0), pad)), 1, AmplitudeUnit.VOLTS_PEAK);
+        Design unit = micIntoPad();
         // Linear figures scale with the source; choose it so that mic's demand is 1.2 × its E.
         DesignReport probe = DesignAnalysis.analyse(unit, false);
         Linear perVolt = Linear.of(unit);
@@ -250,10 +255,7 @@ class ClipAwareEnvelopeTest {
         // between what it can deliver on the flat pack (two AA cells at their end point) and on the
         // nominal 3 V: at nominal nothing clips, at the end point mic clips and the pad gets E1/P1 of
         // its linear drive there.
-        Design base = preampRepeated(1);
-        Stage pad = new Stage("pad", StageKind.INVERTING, OpAmpChoice.archetype(OpAmpArchetype.CMOS_RRIO_LOW_VOLTAGE),
-                22e3, 47e3, null, film(1e-6));
-        Design unit = withSource(base.withStages(List.of(base.stages().get(0), pad)), 1, AmplitudeUnit.VOLTS_PEAK);
+        Design unit = micIntoPad();
         DesignReport probe = DesignAnalysis.analyse(unit, false);
         Linear perVolt = Linear.of(unit);
         double eNominal = deliverable(stage(probe, "mic-1").nominal());
