@@ -212,17 +212,19 @@ class ClipAwareEnvelopeTest {
         return withSource(base.withStages(List.of(base.stages().get(0), pad)), 1, AmplitudeUnit.VOLTS_PEAK);
     }
 
+    /** {@link #micIntoPad()} with the source set so that mic's linear output peak is {@code micVolts} (figures scale with the source). */
+    static Design micIntoPadAsking(double micVolts) {
+        Design unit = micIntoPad();
+        return withSource(unit, micVolts / Linear.of(unit).outputs().get("mic-1"), AmplitudeUnit.VOLTS_PEAK);
+    }
+
     @Test
     void aFirstStageTwentyPercentOverScalesEverythingAfterItByItsClipFactor() {
         // mic (gain 48) into an inverting pad of 22k/47k (0.47): the pad never clips, so every
         // figure after mic is the linear one times E1/P1 = 1/1.2.
-        Design unit = micIntoPad();
-        // Linear figures scale with the source; choose it so that mic's demand is 1.2 × its E.
-        DesignReport probe = DesignAnalysis.analyse(unit, false);
-        Linear perVolt = Linear.of(unit);
-        double e1 = deliverable(stage(probe, "mic-1").nominal());
-        double source = 1.2 * e1 / perVolt.outputs().get("mic-1");
-        Design d = withSource(unit, source, AmplitudeUnit.VOLTS_PEAK);
+        // Choose the source so that mic's demand is 1.2 × its E.
+        double e1 = deliverable(stage(DesignAnalysis.analyse(micIntoPad(), false), "mic-1").nominal());
+        Design d = micIntoPadAsking(1.2 * e1);
         DesignReport r = DesignAnalysis.analyse(d, false);
         Linear lin = Linear.of(d);
         StageReport mic = stage(r, "mic-1");
@@ -255,14 +257,12 @@ class ClipAwareEnvelopeTest {
         // between what it can deliver on the flat pack (two AA cells at their end point) and on the
         // nominal 3 V: at nominal nothing clips, at the end point mic clips and the pad gets E1/P1 of
         // its linear drive there.
-        Design unit = micIntoPad();
-        DesignReport probe = DesignAnalysis.analyse(unit, false);
-        Linear perVolt = Linear.of(unit);
-        double eNominal = deliverable(stage(probe, "mic-1").nominal());
-        double eEnd = deliverable(stage(probe, "mic-1").endPoint());
+        StageReport probe = stage(DesignAnalysis.analyse(micIntoPad(), false), "mic-1");
+        double eNominal = deliverable(probe.nominal());
+        double eEnd = deliverable(probe.endPoint());
         assertTrue(eEnd < eNominal, "the flat pack's window is narrower: " + eEnd + " vs " + eNominal);
         double demand = 0.5 * (eNominal + eEnd);
-        Design d = withSource(unit, demand / perVolt.outputs().get("mic-1"), AmplitudeUnit.VOLTS_PEAK);
+        Design d = micIntoPadAsking(demand);
         DesignReport r = DesignAnalysis.analyse(d, false);
         Linear lin = Linear.of(d);
         StageReport mic = stage(r, "mic-1");
