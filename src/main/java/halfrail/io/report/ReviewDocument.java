@@ -247,7 +247,8 @@ final class ReviewDocument {
         return rows;
     }
 
-    private static List<List<String>> stage(Design d, DesignReport r, StageReport st) {
+    /** The rows of one stage's table (package-private for tests). */
+    static List<List<String>> stage(Design d, DesignReport r, StageReport st) {
         List<List<String>> rows = new ArrayList<>();
         SwingReport n = st.nominal();
         rows.add(List.of("role", st.signal() ? "signal stage" : "reference buffer"));
@@ -258,6 +259,9 @@ final class ReviewDocument {
         rows.add(List.of("swing window", Fmt.volts(n.swingLowVolts()) + " \u2013 " + Fmt.volts(n.swingHighVolts())));
         if (st.signal()) {
             rows.add(List.of("signal peak at the output", Fmt.volts(n.signalPeakVolts())));
+            st.drivenByClipped().ifPresent(first -> rows.add(List.of("drive reaching this stage",
+                    String.format(java.util.Locale.ROOT, "%.3g", 100 * st.driveFactor())
+                            + " % of the linear drive: " + first + " clips first")));
             rows.add(List.of("headroom, nominal supply", headroom(n)));
             rows.add(List.of("headroom, fresh supply " + Fmt.volts(st.fresh().supplyVolts()), headroom(st.fresh())));
             rows.add(List.of("headroom, end-point supply " + Fmt.volts(st.endPoint().supplyVolts()),
