@@ -61,6 +61,7 @@ public final class ReadingsPanelModel {
             list.add(new Figure("analysis", "not solved: " + r.failureMessage()));
         }
         r.chain().ifPresent(c -> chain(c, list));
+        clipsFirst(r, list);
         r.battery().ifPresent(b -> battery(b, list));
         r.powerOn().ifPresent(p -> powerOn(p, list));
         figures.setAll(list);
@@ -79,6 +80,20 @@ public final class ReadingsPanelModel {
         }
         list.add(new Figure("reference noise at the load", EngineeringValue.format(c.referenceNoiseVoltsRms(),
                 Unit.VOLT) + " rms over the band"));
+    }
+
+    /** The first stage that clips at the nominal signal, and how much of their drive the last stage after it gets. */
+    private static void clipsFirst(DesignReport r, List<Figure> list) {
+        StageReport last = null;
+        for (StageReport s : r.stages()) {
+            if (s.drivenByClipped().isPresent()) {
+                last = s;
+            }
+        }
+        if (last != null) {
+            list.add(new Figure("clips first", last.drivenByClipped().get() + "; " + last.label() + " gets "
+                    + String.format(Locale.ROOT, "%.3g", 100 * last.driveFactor()) + " % of its linear drive"));
+        }
     }
 
     private static void battery(BatteryReport b, List<Figure> list) {

@@ -142,6 +142,25 @@ class WorkbenchModelTest {
     }
 
     @Test
+    void aChainBehindAClippingStageNamesItInTheReadings() {
+        halfrail.design.Design base = halfrail.io.DesignFiles.read(java.nio.file.Path.of("samples",
+                "handheld-recorder-mic-preamp.json"));
+        java.util.List<halfrail.design.Stage> stages = new java.util.ArrayList<>();
+        for (int i = 1; i <= 3; i++) {
+            halfrail.design.Stage st = base.stages().get(0);
+            stages.add(new halfrail.design.Stage(st.name() + "-" + i, st.kind(), st.opAmp(), st.feedbackOhms(),
+                    st.legOhms(), st.legCapacitor(), st.inputCapacitor(), true));
+        }
+        model.replace(base.withStages(stages), null);
+        double drive = model.reportProperty().get().stages().get(2).driveFactor();
+        assertTrue(model.readings().figures().stream().anyMatch(f -> f.name().equals("clips first")
+                && f.value().equals("mic-2; mic-3 gets " + String.format(java.util.Locale.ROOT, "%.3g", 100 * drive)
+                + " % of its linear drive")), model.readings().figures()::toString);
+        model.replace(SampleDesigns.instrumentBoost(), null);
+        assertTrue(model.readings().figures().stream().noneMatch(f -> f.name().equals("clips first")));
+    }
+
+    @Test
     void aDesignWithoutItsLegCapacitorShowsItsFailingFindings() {
         model.replace(SampleDesigns.missingLegCapacitor(), null);
         // with R1 DC-coupled to ground the stage amplifies its bias by 1 + R2/R1 = 11 (non-inverting gain rule),
