@@ -336,7 +336,7 @@ public final class DesignAnalysis {
             }
             return new ChainReport(bandLow, bandHigh, pb.peakMagnitude(), pb.peakHz(), pb.lowerCornerHz(),
                     pb.upperCornerHz(), ripple, rippleGain,
-                    ReferenceNoise.voltsRms(nominal.circuit(), nominal.loadNode(), bandLow, bandHigh), responses(ac));
+                    ReferenceNoise.voltsRms(ac, nominal.loadNode(), bandLow, bandHigh), responses(ac));
         }
 
         /** The gain from the source to each signal stage's output and to the load, for plots. */

@@ -1,7 +1,6 @@
 package halfrail.check;
 
 import halfrail.circuit.Circuit;
-import halfrail.circuit.CurrentSource;
 import halfrail.circuit.Element;
 import halfrail.circuit.Resistor;
 import halfrail.solve.AcAnalysis;
@@ -25,23 +24,27 @@ final class ReferenceNoise {
         return name.equals("RA") || name.equals("RB") || name.equals("RISO") || name.startsWith("RBIAS");
     }
 
-    /** RMS noise voltage at {@code node} over {@code lowHz}..{@code highHz}, V. */
+    /** RMS noise voltage at {@code node} over {@code lowHz}..{@code highHz}, V, on a fresh small-signal analysis of {@code circuit}. */
     static double voltsRms(Circuit circuit, String node, double lowHz, double highHz) {
-        Circuit.Builder b = circuit.toBuilder();
-        List<String> sources = new ArrayList<>();
-        List<Double> conductance = new ArrayList<>();
-        for (Element e : circuit.elements()) {
+        return voltsRms(AcAnalysis.of(circuit), node, lowHz, highHz);
+    }
+
+    /**
+     * RMS noise voltage at {@code node} over {@code lowHz}..{@code highHz}, V, from the analysis
+     * {@code ac} already made: each resistor's noise current reaches the node through the
+     * transimpedance between its ends ({@link AcAnalysis#transimpedance}), all of which one
+     * transposed solve per frequency gives.
+     */
+    static double voltsRms(AcAnalysis ac, String node, double lowHz, double highHz) {
+        List<Resistor> resistors = new ArrayList<>();
+        for (Element e : ac.operatingPoint().system().circuit().elements()) {
             if (e instanceof Resistor r && isReferenceResistor(r.name())) {
-                String name = "INOISE_" + r.name();
-                b.add(new CurrentSource(name, r.a(), r.b(), 0));
-                sources.add(name);
-                conductance.add(1 / r.ohms());
+                resistors.add(r);
             }
         }
-        if (sources.isEmpty()) {
+        if (resistors.isEmpty()) {
             return 0;
         }
-        AcAnalysis ac = AcAnalysis.of(b.build());
         int points = Math.max(2, (int) Math.ceil(Math.log10(highHz / lowHz) * DesignAnalysis.NOISE_POINTS_PER_DECADE) + 1);
         double fourKt = 4 * DesignAnalysis.BOLTZMANN * DesignAnalysis.NOISE_TEMPERATURE_KELVIN;
         double total = 0;
@@ -50,9 +53,9 @@ final class ReferenceNoise {
         for (int k = 0; k < points; k++) {
             double f = lowHz * Math.pow(highHz / lowHz, k / (double) (points - 1));
             double density = 0;
-            for (int s = 0; s < sources.size(); s++) {
-                double z = ac.response(sources.get(s), node, f).magnitude();
-                density += fourKt * conductance.get(s) * z * z;
+            for (Resistor r : resistors) {
+                double z = ac.transimpedance(r.a(), r.b(), node, f).magnitude();
+                density += fourKt / r.ohms() * z * z;
             }
             if (k > 0) {
                 total += 0.5 * (density + prevDensity) * (f - prevF);

@@ -93,6 +93,11 @@ public final class AcAnalysis {
     /** Bits of the frequency whose factors the solver holds, or {@link #NONE_FACTORED}. */
     private long factoredHzBits = NONE_FACTORED;
     private int solves;
+    /** The last adjoint solve of {@link #transimpedance} (y = A⁻ᵀ·e_out): its output node and frequency. */
+    private int adjointNode = -1;
+    private long adjointHzBits = NONE_FACTORED;
+    private final double[] adjointRe;
+    private final double[] adjointIm;
 
     /** Linearise the circuit of {@code operatingPoint} at that point. */
     public AcAnalysis(OperatingPoint operatingPoint) {
@@ -110,6 +115,8 @@ public final class AcAnalysis {
         this.n = system.size();
         this.xRe = new double[n];
         this.xIm = new double[n];
+        this.adjointRe = new double[n];
+        this.adjointIm = new double[n];
         double[] f = new double[n];
         double[] q = new double[n];
         if (useSparse) {
@@ -285,6 +292,64 @@ public final class AcAnalysis {
         return new AcTransfer(hz, value(xRe, a, 0) - value(xRe, b, 0), value(xIm, a, 0) - value(xIm, b, 0));
     }
 
+    /**
+     * The transimpedance at {@code hz} from a current injected into node {@code into} (and drawn
+     * out of node {@code outOf}) to the voltage of {@code outputNode}, V/A — what a current source
+     * between those nodes would give, without adding one to the circuit. All such transfers to
+     * one output at one frequency come from a single solve with the transposed matrix (the
+     * adjoint: V_out = eᵀ·A⁻¹·b = (A⁻ᵀ·e)ᵀ·b, so y = A⁻ᵀ·e serves every b), which is kept for
+     * the next call with the same output and frequency.
+     *
+     * @throws AnalysisException BAD_REQUEST for an unknown node or a bad frequency; SINGULAR when
+     *                           the linearised system is singular at {@code hz}
+     */
+    public AcTransfer transimpedance(String into, String outOf, String outputNode, double hz) {
+        if (!Double.isFinite(hz) || hz < 0) {
+            throw new AnalysisException(AnalysisException.Kind.BAD_REQUEST,
+                    "the frequency must be finite and not negative, got " + hz + " Hz");
+        }
+        int a = system.nodeIndex(into);
+        int b = system.nodeIndex(outOf);
+        int out = system.nodeIndex(outputNode);
+        if (out < 0) {
+            return new AcTransfer(hz, 0, 0);
+        }
+        long bits = Double.doubleToLongBits(hz);
+        if (out != adjointNode || bits != adjointHzBits) {
+            factorAt(hz);
+            java.util.Arrays.fill(adjointRe, 0);
+            java.util.Arrays.fill(adjointIm, 0);
+            adjointRe[out] = 1;
+            if (sparse != null) {
+                sparse.solveTransposed(adjointRe, adjointIm);
+            } else {
+                lu.solveTransposed(adjointRe, adjointIm);
+            }
+            adjointNode = out;
+            adjointHzBits = bits;
+            SolveAudit.Listener audit = SolveAudit.listener;
+            if (audit != null) {
+                double[] e = new double[n];
+                e[out] = 1;
+                double[][] gd = sparse != null ? auditDense(gValues) : g;
+                double[][] cd = sparse != null ? auditDense(cValues) : c;
+                audit.acSolve(system, transpose(gd), transpose(cd), 2 * Math.PI * hz, e, adjointRe, adjointIm);
+            }
+        }
+        return new AcTransfer(hz, value(adjointRe, a, 0) - value(adjointRe, b, 0),
+                value(adjointIm, a, 0) - value(adjointIm, b, 0));
+    }
+
+    private static double[][] transpose(double[][] m) {
+        double[][] t = new double[m.length][m.length];
+        for (int i = 0; i < m.length; i++) {
+            for (int j = 0; j < m.length; j++) {
+                t[j][i] = m[i][j];
+            }
+        }
+        return t;
+    }
+
     /** Subtract a conductance and a susceptance at (row, col) of the assembled G + jωC (skipped for ground). */
     private void remove(int row, int col, double conductance, double susceptance) {
         if (row < 0 || col < 0) {
@@ -457,22 +522,7 @@ public final class AcAnalysis {
 
     private void solveAt(double hz, double[] b) {
         double omega = 2 * Math.PI * hz;
-        if (Double.doubleToLongBits(hz) != factoredHzBits) {
-            // Another input at the frequency last factored needs only another solve.
-            factoredHzBits = NONE_FACTORED;
-            solves++;
-            try {
-                fill(omega);
-                if (sparse != null) {
-                    sparse.factor(pattern, reValues, imValues);
-                } else {
-                    lu.factor(workRe, workIm, n);
-                }
-            } catch (AnalysisException e) {
-                throw new AnalysisException(e.kind(), "at " + hz + " Hz: " + e.getMessage(), e.nodes());
-            }
-            factoredHzBits = Double.doubleToLongBits(hz);
-        }
+        factorAt(hz);
         System.arraycopy(b, 0, xRe, 0, n);
         java.util.Arrays.fill(xIm, 0);
         if (sparse != null) {
@@ -491,6 +541,27 @@ public final class AcAnalysis {
             } else {
                 audit.acSolve(system, g, c, omega, b, xRe, xIm);
             }
+        }
+    }
+
+    /** Factor G + jωC at {@code hz} unless the factors held are of that very frequency. */
+    private void factorAt(double hz) {
+        double omega = 2 * Math.PI * hz;
+        if (Double.doubleToLongBits(hz) != factoredHzBits) {
+            // Another input at the frequency last factored needs only another solve.
+            factoredHzBits = NONE_FACTORED;
+            solves++;
+            try {
+                fill(omega);
+                if (sparse != null) {
+                    sparse.factor(pattern, reValues, imValues);
+                } else {
+                    lu.factor(workRe, workIm, n);
+                }
+            } catch (AnalysisException e) {
+                throw new AnalysisException(e.kind(), "at " + hz + " Hz: " + e.getMessage(), e.nodes());
+            }
+            factoredHzBits = Double.doubleToLongBits(hz);
         }
     }
 

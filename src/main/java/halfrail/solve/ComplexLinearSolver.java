@@ -21,4 +21,12 @@ public interface ComplexLinearSolver {
      * factored A.
      */
     void solve(double[] bRe, double[] bIm);
+
+    /**
+     * Overwrite {@code bRe} + j·{@code bIm} with the solution y of Aᵀ·y = b (the plain transpose,
+     * not the conjugate) for the last factored A, from the same factors. One such solve with the
+     * unit vector of an output node gives that node's response to a current injected anywhere:
+     * the adjoint (reciprocity-free) form of the transfer, eᵀA⁻¹b = (A⁻ᵀe)ᵀb.
+     */
+    void solveTransposed(double[] bRe, double[] bIm);
 }

@@ -181,4 +181,50 @@ public final class DenseComplexLu implements ComplexLinearSolver {
         System.arraycopy(yr, 0, bRe, 0, n);
         System.arraycopy(yi, 0, bIm, 0, n);
     }
+
+    @Override
+    public void solveTransposed(double[] bRe, double[] bIm) {
+        if (re == null) {
+            throw new IllegalStateException("solve before factor");
+        }
+        // P·R·A = L·U, so Aᵀ = Uᵀ·Lᵀ·P·R⁻¹: solve Uᵀ·v = b, then Lᵀ·s = v, then y = R·Pᵀ·s.
+        double[] vr = workRe;
+        double[] vi = workIm;
+        System.arraycopy(bRe, 0, vr, 0, n);
+        System.arraycopy(bIm, 0, vi, 0, n);
+        // Forward substitution with Uᵀ (lower triangle, U's diagonal).
+        for (int i = 0; i < n; i++) {
+            double sr = vr[i];
+            double si = vi[i];
+            for (int j = 0; j < i; j++) {
+                double ur = re[j][i];
+                double ui = im[j][i];
+                sr -= ur * vr[j] - ui * vi[j];
+                si -= ur * vi[j] + ui * vr[j];
+            }
+            double dr = re[i][i];
+            double di = im[i][i];
+            double d2 = dr * dr + di * di;
+            vr[i] = (sr * dr + si * di) / d2;
+            vi[i] = (si * dr - sr * di) / d2;
+        }
+        // Back substitution with Lᵀ (unit upper triangle).
+        for (int i = n - 1; i >= 0; i--) {
+            double sr = vr[i];
+            double si = vi[i];
+            for (int j = i + 1; j < n; j++) {
+                double lr = re[j][i];
+                double li = im[j][i];
+                sr -= lr * vr[j] - li * vi[j];
+                si -= lr * vi[j] + li * vr[j];
+            }
+            vr[i] = sr;
+            vi[i] = si;
+        }
+        for (int i = 0; i < n; i++) {
+            int row = perm[i];
+            bRe[row] = vr[i] * rowScale[row];
+            bIm[row] = vi[i] * rowScale[row];
+        }
+    }
 }

@@ -241,6 +241,61 @@ final class SparseComplexLu implements ComplexLinearSolver {
         }
     }
 
+    @Override
+    public void solveTransposed(double[] bRe, double[] bIm) {
+        if (!factored) {
+            throw new IllegalStateException("solve before factor");
+        }
+        // P·(R·A)·Q = L·U, so Aᵀ = Q·Uᵀ·Lᵀ·P·R⁻¹: w = Qᵀ·b, solve Uᵀ·v = w and Lᵀ·s = v, then
+        // y = R·Pᵀ·s. U and L are stored by columns, so both triangular solves are dot products.
+        double[] vr = yRe;
+        double[] vi = yIm;
+        int[] pinv = sym.pinv;
+        int[] lp = sym.lp;
+        int[] li = sym.li;
+        int[] up = sym.up;
+        int[] ui = sym.ui;
+        int[] order = sym.order;
+        for (int k = 0; k < n; k++) {
+            vr[k] = bRe[order[k]];
+            vi[k] = bIm[order[k]];
+        }
+        for (int j = 0; j < n; j++) {
+            int diag = up[j + 1] - 1;
+            double sr = vr[j];
+            double si = vi[j];
+            for (int p = up[j]; p < diag; p++) {
+                int i = ui[p];
+                double ur = uxRe[p];
+                double uim = uxIm[p];
+                sr -= ur * vr[i] - uim * vi[i];
+                si -= ur * vi[i] + uim * vr[i];
+            }
+            double dr = uxRe[diag];
+            double di = uxIm[diag];
+            double d2 = dr * dr + di * di;
+            vr[j] = (sr * dr + si * di) / d2;
+            vi[j] = (si * dr - sr * di) / d2;
+        }
+        for (int j = n - 1; j >= 0; j--) {
+            double sr = vr[j];
+            double si = vi[j];
+            for (int p = lp[j] + 1, end = lp[j + 1]; p < end; p++) {
+                int i = li[p];
+                double lr = lxRe[p];
+                double lim = lxIm[p];
+                sr -= lr * vr[i] - lim * vi[i];
+                si -= lr * vi[i] + lim * vr[i];
+            }
+            vr[j] = sr;
+            vi[j] = si;
+        }
+        for (int i = 0; i < n; i++) {
+            bRe[i] = vr[pinv[i]] * rowScale[i];
+            bIm[i] = vi[pinv[i]] * rowScale[i];
+        }
+    }
+
     /** Column store of p's pattern and p's shared fill-reducing order; the factors' patterns are made on the next factorisation. */
     private void setUp(MnaSystem.Pattern p) {
         int size = p.size;

@@ -67,6 +67,44 @@ class ComplexLinearSolverContractTest {
 
     @ParameterizedTest(name = "{0}")
     @MethodSource("solvers")
+    void transposedSolvesAgreeWithCommonsMathOnTheTransposedMatrix(Named named) {
+        Random random = new Random(20261203L);
+        ComplexLinearSolver lu = named.solver().get();
+        for (int s = 0; s < SYSTEMS; s++) {
+            int n = 1 + random.nextInt(30);
+            ComplexSystem a = s % 2 == 0 ? ComplexSystems.randomDense(random, n, s % 3 == 0)
+                    : ComplexSystems.randomSparse(random, n, s % 3 == 0);
+            ComplexSystem t = transposed(a);
+            double[] yRe = a.bRe().clone();
+            double[] yIm = a.bIm().clone();
+            lu.factor(copy(a.re()), copy(a.im()), n);
+            lu.solveTransposed(yRe, yIm);
+            assertAgrees(commonsMathSolve(t), new double[][] {yRe, yIm}, RELATIVE_TOLERANCE, "system " + s);
+            assertResidualSmall(t, yRe, yIm);
+            // the same factors still solve A·x = b afterwards
+            double[] xRe = a.bRe().clone();
+            double[] xIm = a.bIm().clone();
+            lu.solve(xRe, xIm);
+            assertAgrees(commonsMathSolve(a), new double[][] {xRe, xIm}, RELATIVE_TOLERANCE, "system " + s + ", A·x");
+        }
+    }
+
+    /** Aᵀ (the plain transpose) with the same right-hand side. */
+    private static ComplexSystem transposed(ComplexSystem a) {
+        int n = a.re().length;
+        double[][] re = new double[n][n];
+        double[][] im = new double[n][n];
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                re[j][i] = a.re()[i][j];
+                im[j][i] = a.im()[i][j];
+            }
+        }
+        return new ComplexSystem(re, im, a.bRe(), a.bIm());
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("solvers")
     void oneFactorisationServesSeveralRightHandSides(Named named) {
         Random random = new Random(7);
         int n = 6;
