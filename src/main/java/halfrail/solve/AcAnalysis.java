@@ -331,9 +331,8 @@ public final class AcAnalysis {
             if (audit != null) {
                 double[] e = new double[n];
                 e[out] = 1;
-                double[][] gd = sparse != null ? auditDense(gValues) : g;
-                double[][] cd = sparse != null ? auditDense(cValues) : c;
-                audit.acSolve(system, transpose(gd), transpose(cd), 2 * Math.PI * hz, e, adjointRe, adjointIm);
+                auditMatrices();
+                audit.acSolve(system, transpose(auditG), transpose(auditC), 2 * Math.PI * hz, e, adjointRe, adjointIm);
             }
         }
         return new AcTransfer(hz, value(adjointRe, a, 0) - value(adjointRe, b, 0),
@@ -532,15 +531,8 @@ public final class AcAnalysis {
         }
         SolveAudit.Listener audit = SolveAudit.listener;
         if (audit != null) {
-            if (sparse != null) {
-                if (auditG == null) {
-                    auditG = auditDense(gValues);
-                    auditC = auditDense(cValues);
-                }
-                audit.acSolve(system, auditG, auditC, omega, b, xRe, xIm);
-            } else {
-                audit.acSolve(system, g, c, omega, b, xRe, xIm);
-            }
+            auditMatrices();
+            audit.acSolve(system, auditG, auditC, omega, b, xRe, xIm);
         }
     }
 
@@ -565,9 +557,19 @@ public final class AcAnalysis {
         }
     }
 
-    /** The sparse path's G and C as dense matrices, made on the first audited solve (tests only). */
+    /**
+     * G and C as dense matrices for the audit (tests only): the dense path's own, or the sparse
+     * path's made on the first audited solve (G and C do not depend on the frequency).
+     */
     private double[][] auditG;
     private double[][] auditC;
+
+    private void auditMatrices() {
+        if (auditG == null) {
+            auditG = sparse != null ? auditDense(gValues) : g;
+            auditC = sparse != null ? auditDense(cValues) : c;
+        }
+    }
 
     /** G or C of the sparse path as a dense matrix, for the test-only audit (never in production). */
     private double[][] auditDense(double[] values) {

@@ -41,6 +41,12 @@ final class Fmt {
         return of(v, Unit.SECOND);
     }
 
+    /** A power-on run that did not settle: it keeps oscillating (with its period), or not within the run. */
+    static String notSettled(halfrail.check.PowerOnReport p) {
+        return p.oscillation().map(o -> "keeps oscillating, period " + seconds(o.periodSeconds()))
+                .orElse("not settled within " + seconds(p.simulatedSeconds()));
+    }
+
     static String ohms(double v) {
         return of(v, Unit.OHM);
     }

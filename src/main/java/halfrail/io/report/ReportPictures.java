@@ -476,8 +476,7 @@ public final class ReportPictures {
         } else {
             g.setFont(BOLD);
             g.setColor(Palette.CLIPPED);
-            g.drawString(p.oscillation().map(o -> "keeps oscillating, period " + Fmt.seconds(o.periodSeconds()))
-                    .orElse("not settled within " + Fmt.seconds(p.simulatedSeconds())), (float) f.left + 8,
+            g.drawString(Fmt.notSettled(p), (float) f.left + 8,
                     (float) f.top + 30);
         }
 

@@ -278,8 +278,7 @@ final class ReviewDocument {
         rows.add(List.of("bias gain (reference to output)", Fmt.gain(st.biasGain()) + " V/V"));
         rows.add(List.of("settle-up time (whole design)", r.powerOn().map(p -> p.settleSeconds().isPresent()
                 ? Fmt.seconds(p.settleSeconds().getAsDouble())
-                : p.oscillation().map(o -> "keeps oscillating, period " + Fmt.seconds(o.periodSeconds()))
-                .orElse("not settled within " + Fmt.seconds(p.simulatedSeconds()))).orElse(Fmt.NONE)));
+                : Fmt.notSettled(p)).orElse(Fmt.NONE)));
         rows.add(List.of("time on a rail at switch-on", r.powerOn().map(p -> p.pinnedSeconds().containsKey(st.label())
                 ? Fmt.seconds(p.pinnedSeconds().get(st.label())) : "0 s").orElse(Fmt.NONE)));
         rows.add(List.of("leakage drift (limit leakage)", Fmt.signedVolts(st.leakageDriftVolts())));
